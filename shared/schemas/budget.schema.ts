@@ -112,7 +112,7 @@ export const measurandSchema = z
   .object({ symbol: symbolSchema, unit: z.string().max(64).optional(), description: z.string().max(500).optional() })
   .strict();
 
-export const budgetSchema = z
+export const budgetObjectSchema = z
   .object({
     measurand: measurandSchema.optional(),
     equations: z
@@ -127,8 +127,11 @@ export const budgetSchema = z
     /** Report U to one or two significant digits (default 2). */
     reportDigits: z.union([z.literal(1), z.literal(2)]).optional(),
   })
-  .passthrough()
-  .superRefine((doc, ctx) => {
+  .passthrough();
+
+/** Cross-field checks of a budget document (duplicate symbols, correlations). */
+export function checkBudgetConsistency(doc: z.infer<typeof budgetObjectSchema>, ctx: z.RefinementCtx): void {
+  {
     const seen = new Set<string>();
     doc.inputs.forEach((input, i) => {
       if (seen.has(input.symbol)) ctx.addIssue({ code: 'custom', message: `input symbol "${input.symbol}" is defined twice`, path: ['inputs', i, 'symbol'] });
@@ -146,7 +149,10 @@ export const budgetSchema = z
           ctx.addIssue({ code: 'custom', message: `correlation with "${s}" is refused: correlations are allowed between normal inputs only (JCGM 101 §6.4.8)`, path: ['correlations', i, 'between'] });
       }
     });
-  });
+  }
+}
+
+export const budgetSchema = budgetObjectSchema.superRefine(checkBudgetConsistency);
 
 export type BudgetDocument = z.infer<typeof budgetSchema>;
 
