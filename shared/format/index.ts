@@ -1,0 +1,3 @@
+export * from './number';
+export * from './units';
+export * from './result';

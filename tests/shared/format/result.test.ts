@@ -1,0 +1,51 @@
+// Reporting a result: GUM (JCGM 100:2008) §7.2.2/§7.2.4 (value ± U with unit and k),
+// §7.2.6 (U to at most two significant digits, the value to the same decimal place);
+// EA-4/02 M:2022 §5 (round up when normal rounding lowers U by more than 5 %).
+import { describe, expect, it } from 'vitest';
+import { formatCoverageProbability, formatResult, MINUS, roundUncertainty } from '../../../shared/format';
+
+describe('roundUncertainty', () => {
+  it('keeps two significant digits', () => {
+    expect(roundUncertainty(0.13567)).toEqual({ value: 0.14, lastDigitExponent: -2 });
+    expect(roundUncertainty(1357)).toEqual({ value: 1400, lastDigitExponent: 2 });
+  });
+  it('carries into a new digit (0.0996 → 0.10)', () => {
+    expect(roundUncertainty(0.0996)).toEqual({ value: 0.1, lastDigitExponent: -2 });
+  });
+  it('rounds up when normal rounding would lower U by more than 5 % (one digit: 0.14 → 0.2)', () => {
+    // With one significant digit 0.14 would round to 0.1, i.e. 29 % lower.
+    expect(roundUncertainty(0.14, 1).value).toBe(0.2);
+    expect(roundUncertainty(0.104, 1).value).toBe(0.1); // 3.8 % lower: normal rounding stays
+  });
+});
+
+describe('formatCoverageProbability', () => {
+  it('says ≈ when the percentage is rounded', () => {
+    expect(formatCoverageProbability(0.9545)).toBe('p ≈ 95 %');
+    expect(formatCoverageProbability(0.95)).toBe('p = 95 %');
+    expect(formatCoverageProbability(0.9973)).toBe('p ≈ 99.7 %');
+  });
+});
+
+describe('formatResult', () => {
+  it('reads y ± U unit (k, p) with the value at the decimal place of U', () => {
+    expect(formatResult(773.2149, 0.13567, 'K', 2.05, 0.9545)).toBe('773.21 ± 0.14 K (k = 2.05, p ≈ 95 %)');
+  });
+  it('prints k to two decimals', () => {
+    expect(formatResult(0.21, 0.14, 'K', 2, 0.9545)).toBe('0.21 ± 0.14 K (k = 2.00, p ≈ 95 %)');
+  });
+  it('uses people’s units and the minus sign', () => {
+    expect(formatResult(-0.318, 0.052, 'degC', 2, 0.9545)).toBe(`${MINUS}0.318 ± 0.052 °C (k = 2.00, p ≈ 95 %)`);
+  });
+  it('rounds the value to the tens or hundreds when U is that coarse', () => {
+    expect(formatResult(773215, 1357, 'nm', 2, 0.95)).toBe('773\u202F200 ± 1400 nm (k = 2.00, p = 95 %)');
+  });
+  it('shares one power of ten for small values', () => {
+    expect(formatResult(5.3218e-3 * 1e-3, 0.1164e-3 * 1e-3, 'W m-2 sr-1 nm-1', 2.01, 0.9545)).toBe(
+      '(5.32 ± 0.12) × 10⁻⁶ W m⁻² sr⁻¹ nm⁻¹ (k = 2.01, p ≈ 95 %)',
+    );
+  });
+  it('omits the unit of a dimensionless result', () => {
+    expect(formatResult(0.953, 0.012, '', 2, 0.9545)).toBe('0.953 ± 0.012 (k = 2.00, p ≈ 95 %)');
+  });
+});
