@@ -1,0 +1,126 @@
+/**
+ * Browser-test harness: starts the built server (dist/server/index.js) as a child process on a
+ * free port with a fresh DATA_DIR, and drives Debian's chromium with playwright-core. Every
+ * request the page makes is recorded so a test can assert that nothing leaves localhost.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, mkdirSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+export const DEMO_PASSWORD = 'ember-demo-2026';
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const address = srv.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  dataDir: string;
+  process: ChildProcess;
+  output: () => string;
+  stop(signal?: NodeJS.Signals): Promise<void>;
+}
+
+export async function startServer(opts: { dataDir?: string; env?: Record<string, string> } = {}): Promise<RunningServer> {
+  const dataDir = opts.dataDir ?? mkdtempSync(join(tmpdir(), 'emberline-e2e-'));
+  mkdirSync(dataDir, { recursive: true });
+  const port = await freePort();
+  const smtpPort = await freePort();
+  const child = spawn(process.execPath, ['dist/server/index.js'], {
+    cwd: process.cwd(),
+    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), DATA_DIR: dataDir, FAKE_SMTP_PORT: String(smtpPort), BASE_URL: `http://localhost:${port}`, ...opts.env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  let log = '';
+  child.stdout?.on('data', (d) => (log += d));
+  child.stderr?.on('data', (d) => (log += d));
+  const url = `http://localhost:${port}`;
+  const deadline = Date.now() + 90_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}:\n${log}`);
+    try {
+      const res = await fetch(`${url}/api/health`);
+      if (res.ok) break;
+    } catch {
+      /* not listening yet */
+    }
+    if (Date.now() > deadline) throw new Error(`server did not start in time:\n${log}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return {
+    url,
+    port,
+    dataDir,
+    process: child,
+    output: () => log,
+    async stop(signal: NodeJS.Signals = 'SIGTERM') {
+      if (child.exitCode !== null) return;
+      const exited = new Promise((r) => child.once('exit', r));
+      child.kill(signal);
+      await exited;
+    },
+  };
+}
+
+export interface Browser {
+  context: BrowserContext;
+  page: Page;
+  /** Every URL the browser requested. */
+  requests: string[];
+  /** Console errors and page errors seen. */
+  errors: string[];
+  close(): Promise<void>;
+}
+
+export async function openBrowser(): Promise<Browser> {
+  const profile = mkdtempSync(join(tmpdir(), 'emberline-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    viewport: { width: 1366, height: 900 },
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+  const requests: string[] = [];
+  const errors: string[] = [];
+  context.on('request', (r) => requests.push(r.url()));
+  const page = context.pages()[0] ?? (await context.newPage());
+  page.on('console', (m) => {
+    if (m.type() === 'error') errors.push(m.text());
+  });
+  page.on('pageerror', (e) => errors.push(String(e)));
+  return {
+    context,
+    page,
+    requests,
+    errors,
+    async close() {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** True when every URL is on this machine (localhost, 127.0.0.0/8, [::1]) or a data:/blob: URL. */
+export function isLocal(url: string): boolean {
+  if (url.startsWith('data:') || url.startsWith('blob:') || url.startsWith('about:')) return true;
+  const host = new URL(url).hostname;
+  return host === 'localhost' || host === '[::1]' || host === '::1' || /^127\./.test(host);
+}
+
+export function screenshotPath(name: string): string {
+  mkdirSync('test-results/screenshots', { recursive: true });
+  return join('test-results/screenshots', `${name}.png`);
+}
