@@ -23,13 +23,20 @@ export class EngineError extends Error {
   readonly equation?: number;
   readonly position?: number;
   readonly path?: Array<string | number>;
+  /** Every problem found, for INVALID_DOCUMENT (one per zod issue, with its path). */
+  readonly issues?: Array<{ path: Array<string | number>; message: string }>;
 
-  constructor(code: EngineErrorCode, message: string, where: { equation?: number; position?: number; path?: Array<string | number> } = {}) {
+  constructor(
+    code: EngineErrorCode,
+    message: string,
+    where: { equation?: number; position?: number; path?: Array<string | number>; issues?: Array<{ path: Array<string | number>; message: string }> } = {},
+  ) {
     super(message);
     this.name = 'EngineError';
     this.code = code;
     this.equation = where.equation;
     this.position = where.position;
     this.path = where.path;
+    this.issues = where.issues;
   }
 }

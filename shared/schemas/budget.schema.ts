@@ -21,6 +21,9 @@ export const symbolSchema = z
   .regex(/^[A-Za-z][A-Za-z0-9_]*$/, { message: 'symbol must start with a letter and contain only letters, digits and _' })
   .max(64, { message: 'symbol must be at most 64 characters' });
 
+const unitSchema = z.string({ error: 'unit must be a string' }).max(64, { message: 'a unit must be at most 64 characters' });
+const descriptionSchema = z.string({ error: 'description must be a string' }).max(500, { message: 'a description must be at most 500 characters' });
+
 const minMax = <T extends { min: number; max: number }>(v: T) => v.min < v.max;
 const minMaxMessage = { message: 'min must be less than max', path: ['max'] };
 
@@ -79,8 +82,8 @@ export type Distribution = z.infer<typeof distributionSchema>;
 export const inputSchema = z
   .object({
     symbol: symbolSchema,
-    unit: z.string().max(64).optional(),
-    description: z.string().max(500).optional(),
+    unit: unitSchema.optional(),
+    description: descriptionSchema.optional(),
     distribution: distributionSchema,
     /** Degrees of freedom for the GUM; omitted or null means infinite. */
     dof: positive('dof').nullable().optional(),
@@ -99,17 +102,17 @@ export type Correlation = z.infer<typeof correlationSchema>;
 
 export const monteCarloSchema = z
   .object({
-    trials: z.number().int({ message: 'trials must be a whole number' }).min(1000, { message: 'trials must be at least 1000' }).max(100_000_000, { message: 'trials must be at most 10^8' }).optional(),
-    seed: z.number().int({ message: 'seed must be a whole number' }).min(0).max(2 ** 32 - 1).optional(),
-    adaptive: z.boolean().optional(),
+    trials: z.number({ error: 'trials must be a number' }).int({ message: 'trials must be a whole number' }).min(1000, { message: 'trials must be at least 1000' }).max(100_000_000, { message: 'trials must be at most 10^8' }).optional(),
+    seed: z.number({ error: 'seed must be a number' }).int({ message: 'seed must be a whole number' }).min(0, { message: 'seed must not be negative' }).max(2 ** 32 - 1, { message: 'seed must be at most 2^32 − 1' }).optional(),
+    adaptive: z.boolean({ error: 'adaptive must be true or false' }).optional(),
     interval: z.enum(['shortest', 'symmetric'], { error: 'interval must be "shortest" or "symmetric"' }).optional(),
     /** Significant digits of u(y) for the numerical tolerance (JCGM 101 §7.9.2, §8). */
-    digits: z.number().int().min(1).max(3).optional(),
+    digits: z.number({ error: 'digits must be a number' }).int({ message: 'digits must be a whole number' }).min(1, { message: 'digits must be 1, 2 or 3' }).max(3, { message: 'digits must be 1, 2 or 3' }).optional(),
   })
   .strict();
 
 export const measurandSchema = z
-  .object({ symbol: symbolSchema, unit: z.string().max(64).optional(), description: z.string().max(500).optional() })
+  .object({ symbol: symbolSchema, unit: unitSchema.optional(), description: descriptionSchema.optional() })
   .strict();
 
 export const budgetObjectSchema = z
@@ -118,14 +121,16 @@ export const budgetObjectSchema = z
     equations: z
       .array(z.string().min(1, { message: 'an equation must not be empty' }).max(10_000, { message: 'an equation must be at most 10 000 characters' }), { error: 'equations must be an array of strings' })
       .min(1, { message: 'at least one equation is needed' })
-      .max(100),
-    constants: z.record(symbolSchema, finite('constant')).optional(),
-    inputs: z.array(inputSchema).min(1, { message: 'at least one input quantity is needed' }).max(200),
-    correlations: z.array(correlationSchema).optional(),
+      .max(100, { message: 'at most 100 equations are accepted' }),
+    constants: z.record(symbolSchema, finite('constant'), { error: 'constants must map symbols to numbers' }).optional(),
+    /** Units of the constants, by symbol (used by the dimensional check only). */
+    constantUnits: z.record(symbolSchema, z.string().max(64, { message: 'a unit must be at most 64 characters' })).optional(),
+    inputs: z.array(inputSchema, { error: 'inputs must be an array of input quantities' }).min(1, { message: 'at least one input quantity is needed' }).max(200, { message: 'at most 200 input quantities are accepted' }),
+    correlations: z.array(correlationSchema, { error: 'correlations must be an array' }).optional(),
     coverage: finite('coverage').refine((p) => p > 0 && p < 1, { message: 'coverage must lie strictly between 0 and 1' }).optional(),
     monteCarlo: monteCarloSchema.optional(),
     /** Report U to one or two significant digits (default 2). */
-    reportDigits: z.union([z.literal(1), z.literal(2)]).optional(),
+    reportDigits: z.union([z.literal(1), z.literal(2)], { error: 'reportDigits must be 1 or 2' }).optional(),
   })
   .passthrough();
 
