@@ -1,0 +1,102 @@
+/**
+ * Every route of the client, in one place. Sections of /app get their page from `SECTION_PAGES`;
+ * a feature replaces its placeholder there (navigation labels and roles live in ./navigation).
+ */
+import type { QueryClient } from '@tanstack/react-query';
+import type { ReactNode } from 'react';
+import { createBrowserRouter, redirect, type LoaderFunctionArgs, type RouteObject } from 'react-router';
+import { meQueryOptions } from '../features/session/api/get-me';
+import { ApiError } from '../lib/api-client';
+import { homePathFor, SECTIONS, type SectionId } from './navigation';
+import { AppLayout } from './routes/app-layout';
+import { LandingPage } from './routes/landing';
+import { NoRolePage } from './routes/no-role';
+import { NotFoundPage, StandaloneNotFound } from './routes/not-found';
+import { PublicLayout } from './routes/public-layout';
+import { RouteErrorPage } from './routes/route-error';
+import { SectionPage } from './routes/section-page';
+import { SignInPage } from './routes/sign-in';
+import { VerifyPage } from './routes/verify';
+
+/** The page of each /app section. Replace an entry when its feature is built. */
+const SECTION_PAGES: Record<SectionId, ReactNode> = {
+  users: <SectionPage id="users" />,
+  lab: <SectionPage id="lab" />,
+  mail: <SectionPage id="mail" />,
+  audit: <SectionPage id="audit" />,
+  templates: <SectionPage id="templates" />,
+  standards: <SectionPage id="standards" />,
+  customers: <SectionPage id="customers" />,
+  jobs: <SectionPage id="jobs" />,
+  review: <SectionPage id="review" />,
+  certificates: <SectionPage id="certificates" />,
+  'my-certificates': <SectionPage id="my-certificates" />,
+};
+
+/** Guard of /app: the signed-in user, or a redirect to /sign-in that comes back here. */
+export function requireSession(queryClient: QueryClient) {
+  return async ({ request }: LoaderFunctionArgs) => {
+    try {
+      return await queryClient.ensureQueryData(meQueryOptions());
+    } catch (error) {
+      if (error instanceof ApiError && error.status === 401) {
+        const url = new URL(request.url);
+        throw redirect(`/sign-in?next=${encodeURIComponent(url.pathname + url.search)}`);
+      }
+      throw error;
+    }
+  };
+}
+
+/** /sign-in while already signed in goes straight to the role's start page. */
+function redirectIfSignedIn(queryClient: QueryClient) {
+  return async () => {
+    const me = queryClient.getQueryData(meQueryOptions().queryKey);
+    if (me?.user.role) throw redirect(homePathFor(me.user.role));
+    return null;
+  };
+}
+
+export function createRoutes(queryClient: QueryClient): RouteObject[] {
+  const guard = requireSession(queryClient);
+  return [
+    {
+      id: 'root',
+      errorElement: <RouteErrorPage />,
+      children: [
+        {
+          element: <PublicLayout />,
+          children: [
+            { index: true, element: <LandingPage /> },
+            { path: 'sign-in', loader: redirectIfSignedIn(queryClient), element: <SignInPage /> },
+            { path: 'verify', element: <VerifyPage /> },
+            { path: '*', element: <StandaloneNotFound /> },
+          ],
+        },
+        {
+          id: 'app',
+          path: 'app',
+          loader: guard,
+          element: <AppLayout />,
+          children: [
+            {
+              index: true,
+              loader: async (args) => {
+                const me = await guard(args);
+                if (me.user.role) throw redirect(homePathFor(me.user.role));
+                return null;
+              },
+              element: <NoRolePage />,
+            },
+            ...Object.values(SECTIONS).map((section) => ({ path: section.path, element: SECTION_PAGES[section.id] })),
+            { path: '*', element: <NotFoundPage home="/app" /> },
+          ],
+        },
+      ],
+    },
+  ];
+}
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter(createRoutes(queryClient));
+}

@@ -1,0 +1,1 @@
+export { signOut } from './sign-in';

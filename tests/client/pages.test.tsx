@@ -1,0 +1,54 @@
+import { screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { CAUTIONS } from '../../src/components/ui/cautions';
+import { json, meFor, mockFetch, renderApp } from './render-app';
+
+describe('public pages', () => {
+  it('the landing page says what the product does and shows the three cautions', async () => {
+    mockFetch({});
+    renderApp('/');
+    const h1 = await screen.findByRole('heading', { level: 1 });
+    expect(h1.textContent).toMatch(/signed calibration certificate/);
+    const main = screen.getByRole('main');
+    expect(main.textContent).toMatch(/GUM \(JCGM 100\)/);
+    expect(main.textContent).toMatch(/Monte Carlo propagation \(JCGM 101\)/);
+    expect(main.textContent).toMatch(/authorised signatory/);
+    const cautions = screen.getByRole('region', { name: 'Please note' });
+    for (const c of CAUTIONS) expect(cautions.textContent).toContain(c);
+    expect(within(screen.getByRole('navigation', { name: 'Public pages' })).getByRole('link', { name: 'Sign in' })).toBeTruthy();
+  });
+
+  it('the verification page explains the check', async () => {
+    mockFetch({});
+    renderApp('/verify');
+    expect(await screen.findByRole('heading', { level: 1, name: 'Check a calibration certificate' })).toBeTruthy();
+  });
+});
+
+describe('not-found page', () => {
+  it('answers an unknown public address with a 404 page and a way back', async () => {
+    mockFetch({});
+    renderApp('/no/such/page');
+    expect(await screen.findByRole('heading', { level: 1, name: 'Page not found' })).toBeTruthy();
+    expect(screen.getByText('/no/such/page')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Go to the start page' }).getAttribute('href')).toBe('/');
+  });
+
+  it('inside /app keeps the shell around the 404', async () => {
+    mockFetch({ 'GET /api/me': () => json(200, meFor('analyst')) });
+    renderApp('/app/nothing-here');
+    expect(await screen.findByRole('heading', { level: 1, name: 'Page not found' })).toBeTruthy();
+    expect(screen.getByRole('navigation', { name: 'Sections' })).toBeTruthy();
+  });
+});
+
+describe('error boundary', () => {
+  it('when /api/me fails on the server, then shows what went wrong with a way out', async () => {
+    mockFetch({ 'GET /api/me': () => json(500, { error: { code: 'INTERNAL', message: 'Database unavailable.' } }) });
+    renderApp('/app/jobs');
+    const alert = await screen.findByRole('alert');
+    expect(alert.textContent).toContain('The server reported a problem');
+    expect(alert.textContent).toContain('Database unavailable.');
+    expect(screen.getByRole('button', { name: 'Reload the page' })).toBeTruthy();
+  });
+});
