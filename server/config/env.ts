@@ -1,0 +1,150 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+/**
+ * The server's configuration, parsed once from the environment. This module is the only reader
+ * of `process.env` on the server; everything else receives a `Config`.
+ * Every variable is documented in `.env.example`.
+ */
+
+const bool = (name: string, fallback: boolean) =>
+  z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      if (v === undefined || v.trim() === '') return fallback;
+      const s = v.trim().toLowerCase();
+      if (['1', 'true', 'yes', 'on'].includes(s)) return true;
+      if (['0', 'false', 'no', 'off'].includes(s)) return false;
+      ctx.addIssue({ code: 'custom', message: `${name} must be true or false, got "${v}"` });
+      return z.NEVER;
+    });
+
+const port = (name: string, fallback: number) =>
+  z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      if (v === undefined || v.trim() === '') return fallback;
+      const n = Number(v);
+      if (!Number.isInteger(n) || n < 0 || n > 65535) {
+        ctx.addIssue({ code: 'custom', message: `${name} must be a port number from 0 to 65535, got "${v}"` });
+        return z.NEVER;
+      }
+      return n;
+    });
+
+const optionalText = z
+  .string()
+  .optional()
+  .transform((v) => (v === undefined || v.trim() === '' ? undefined : v.trim()));
+
+const url = (name: string) =>
+  optionalText.refine((v) => v === undefined || /^https?:\/\/[^\s/]+/.test(v), {
+    message: `${name} must be an http:// or https:// URL`,
+  });
+
+const envSchema = z.object({
+  NODE_ENV: z
+    .enum(['development', 'production', 'test'], { error: 'NODE_ENV must be development, production or test' })
+    .optional()
+    .default('development'),
+  PORT: port('PORT', 3000),
+  HOST: optionalText.default('0.0.0.0'),
+  DATA_DIR: optionalText.default('./data'),
+  DATABASE_URL: optionalText.refine((v) => v === undefined || /^postgres(ql)?:\/\//.test(v), {
+    message: 'DATABASE_URL must start with postgres:// or postgresql://',
+  }),
+  PUBLIC_URL: url('PUBLIC_URL'),
+  BASE_URL: url('BASE_URL'),
+  AUTH_SECRET: optionalText.refine((v) => v === undefined || v.length >= 32, {
+    message: 'AUTH_SECRET must be at least 32 characters (leave it unset to have one generated)',
+  }),
+  SMTP_HOST: optionalText,
+  SMTP_PORT: port('SMTP_PORT', 587),
+  SMTP_USER: optionalText,
+  SMTP_PASS: optionalText,
+  SMTP_SECURE: bool('SMTP_SECURE', false),
+  SMTP_FROM: optionalText.default('Emberline <no-reply@emberline-demo.test>'),
+  FAKE_SMTP_PORT: port('FAKE_SMTP_PORT', 2525),
+  SIGNUP_ENABLED: bool('SIGNUP_ENABLED', false),
+  SEED_DEMO: bool('SEED_DEMO', true),
+});
+
+export type SmtpConfig = {
+  host: string;
+  port: number;
+  secure: boolean;
+  user?: string;
+  pass?: string;
+};
+
+export type Config = {
+  nodeEnv: 'development' | 'production' | 'test';
+  port: number;
+  host: string;
+  /** Absolute path of the data folder (database, auth secret, mailbox, files). */
+  dataDir: string;
+  /** Set: node-postgres against that server. Unset: embedded PGlite under dataDir/pglite. */
+  databaseUrl?: string;
+  /** The URL people use to reach the app, without a trailing slash. */
+  baseUrl: string;
+  /** Unset: generated on first start and kept in dataDir/auth-secret (see server/auth/secret.ts). */
+  authSecret?: string;
+  /** Unset: the local fake SMTP server (server/mail/fake-smtp.ts) receives the mail. */
+  smtp?: SmtpConfig;
+  mailFrom: string;
+  fakeSmtpPort: number;
+  signupEnabled: boolean;
+  seedDemo: boolean;
+};
+
+export class ConfigError extends Error {
+  constructor(readonly problems: string[]) {
+    super(`The configuration is not valid:\n${problems.map((p) => `  - ${p}`).join('\n')}`);
+    this.name = 'ConfigError';
+  }
+}
+
+/**
+ * Parses the environment. Throws a `ConfigError` listing every problem at once.
+ * @param env defaults to `process.env`; tests pass their own object.
+ * @param cwd folder that a relative DATA_DIR is resolved against.
+ */
+export function loadConfig(env: Record<string, string | undefined> = process.env, cwd = process.cwd()): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    throw new ConfigError(
+      parsed.error.issues.map((i) => {
+        const name = i.path.join('.');
+        return i.message.startsWith(name) ? i.message : `${name}: ${i.message}`;
+      }),
+    );
+  }
+  const e = parsed.data;
+  const problems: string[] = [];
+  if (e.SMTP_USER && !e.SMTP_PASS) problems.push('SMTP_PASS must be set when SMTP_USER is set');
+  if (!e.SMTP_HOST && (e.SMTP_USER || e.SMTP_PASS)) problems.push('SMTP_HOST must be set when SMTP_USER or SMTP_PASS is set');
+  if (e.PUBLIC_URL && e.BASE_URL && e.PUBLIC_URL.replace(/\/+$/, '') !== e.BASE_URL.replace(/\/+$/, '')) {
+    problems.push('PUBLIC_URL and BASE_URL name the same thing: set one of them, or the same value in both');
+  }
+  if (problems.length) throw new ConfigError(problems);
+
+  const baseUrl = (e.PUBLIC_URL ?? e.BASE_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, '');
+  return {
+    nodeEnv: e.NODE_ENV,
+    port: e.PORT,
+    host: e.HOST,
+    dataDir: path.resolve(cwd, e.DATA_DIR),
+    databaseUrl: e.DATABASE_URL,
+    baseUrl,
+    authSecret: e.AUTH_SECRET,
+    smtp: e.SMTP_HOST
+      ? { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS }
+      : undefined,
+    mailFrom: e.SMTP_FROM,
+    fakeSmtpPort: e.FAKE_SMTP_PORT,
+    signupEnabled: e.SIGNUP_ENABLED,
+    seedDemo: e.SEED_DEMO,
+  };
+}

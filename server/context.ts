@@ -1,0 +1,47 @@
+import type { Config } from './config/env';
+import type { Database } from './db/client';
+import { createAuth, type Auth } from './auth/auth';
+import { resolveAuthSecret } from './auth/secret';
+import type { Mailer } from './mail/mailer';
+import { createOutbox, type Outbox } from './mail/outbox';
+import type { Logger } from './logger';
+
+/**
+ * Everything the app needs from outside, built once in server/index.ts (or tests/setup/test-app.ts)
+ * and passed to createApp. Modules take what they need from here; nothing reaches for globals.
+ */
+export type AppDeps = {
+  config: Config;
+  database: Database;
+  auth: Auth;
+  mailer: Mailer;
+  outbox: Outbox;
+  /** The time; injectable so tests can move it. */
+  clock: () => Date;
+  logger: Logger;
+};
+
+/** Builds AppDeps around an open database and a mailer. */
+export function createAppDeps(opts: {
+  config: Config;
+  database: Database;
+  mailer: Mailer;
+  logger: Logger;
+  clock?: () => Date;
+}): AppDeps {
+  const clock = opts.clock ?? (() => new Date());
+  const auth = createAuth({
+    config: opts.config,
+    db: opts.database.db,
+    secret: resolveAuthSecret({ authSecret: opts.config.authSecret, dataDir: opts.config.dataDir }),
+  });
+  const outbox = createOutbox({
+    db: opts.database.db,
+    mailer: opts.mailer,
+    clock,
+    logger: opts.logger,
+    dataDir: opts.config.dataDir,
+    messageIdDomain: new URL(opts.config.baseUrl).hostname || 'emberline.invalid',
+  });
+  return { config: opts.config, database: opts.database, auth, mailer: opts.mailer, outbox, clock, logger: opts.logger };
+}

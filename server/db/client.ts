@@ -1,0 +1,105 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { PGlite } from '@electric-sql/pglite';
+import type { PgDatabase, PgQueryResultHKT } from 'drizzle-orm/pg-core';
+import { drizzle as drizzlePglite } from 'drizzle-orm/pglite';
+import { migrate as migratePglite } from 'drizzle-orm/pglite/migrator';
+import { drizzle as drizzlePg } from 'drizzle-orm/node-postgres';
+import { migrate as migratePg } from 'drizzle-orm/node-postgres/migrator';
+import pg from 'pg';
+import * as schema from './schema';
+
+export type Schema = typeof schema;
+
+/**
+ * The one database type repositories take. Both drivers (embedded PGlite and node-postgres)
+ * produce a `PgDatabase` over the same schema, so a repository written against `Db` runs on
+ * either; a transaction (`db.transaction(async (tx) => …)`) hands out a `Db` too.
+ * Driver-specific behaviour (result shapes of `db.execute`) is not part of it: use the query
+ * builder, or `Database.query` for raw SQL.
+ */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export type Db = PgDatabase<PgQueryResultHKT & any, Schema>;
+
+export type DatabaseKind = 'pglite' | 'postgres';
+
+export type Database = {
+  db: Db;
+  kind: DatabaseKind;
+  /** Raw SQL with $1… parameters; returns the rows. For tests, tools and one-off maintenance. */
+  query<T = Record<string, unknown>>(sqlText: string, params?: unknown[]): Promise<T[]>;
+  close(): Promise<void>;
+};
+
+export type OpenDatabaseOptions = {
+  /** PGlite keeps its files in `<dataDir>/pglite`. Ignored when `databaseUrl` is set. */
+  dataDir: string;
+  /** postgres://… selects node-postgres against that server. */
+  databaseUrl?: string;
+  /** Defaults to the repository's `drizzle/` folder. */
+  migrationsFolder?: string;
+  /** Apply pending migrations before returning (default true). */
+  migrate?: boolean;
+};
+
+/** Finds `drizzle/` by walking up from this file (works from server/db and from dist/server). */
+export function defaultMigrationsFolder(): string {
+  let dir = path.dirname(fileURLToPath(import.meta.url));
+  for (;;) {
+    const candidate = path.join(dir, 'drizzle');
+    if (fs.existsSync(path.join(candidate, 'meta', '_journal.json'))) return candidate;
+    const parent = path.dirname(dir);
+    if (parent === dir) throw new Error('The migrations folder drizzle/ was not found above ' + fileURLToPath(import.meta.url));
+    dir = parent;
+  }
+}
+
+/** Opens the database, applies migrations from `drizzle/` and returns it. */
+export async function openDatabase(options: OpenDatabaseOptions): Promise<Database> {
+  const migrationsFolder = options.migrationsFolder ?? defaultMigrationsFolder();
+  const shouldMigrate = options.migrate ?? true;
+
+  if (options.databaseUrl) {
+    const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
+    const db = drizzlePg({ client: pool, schema });
+    try {
+      if (shouldMigrate) await migratePg(db, { migrationsFolder });
+    } catch (err) {
+      await pool.end();
+      throw err;
+    }
+    return {
+      db: db as Db,
+      kind: 'postgres',
+      async query<T>(sqlText: string, params: unknown[] = []) {
+        const result = await pool.query(sqlText, params);
+        return result.rows as T[];
+      },
+      close: () => pool.end(),
+    };
+  }
+
+  // PGlite fails with ENOENT when the parent folder is missing.
+  const dir = path.join(options.dataDir, 'pglite');
+  fs.mkdirSync(dir, { recursive: true });
+  const client = new PGlite(dir);
+  const db = drizzlePglite({ client, schema });
+  try {
+    if (shouldMigrate) await migratePglite(db, { migrationsFolder });
+  } catch (err) {
+    await client.close();
+    throw err;
+  }
+  return {
+    db: db as unknown as Db,
+    kind: 'pglite',
+    async query<T>(sqlText: string, params: unknown[] = []) {
+      const result = await client.query(sqlText, params);
+      return result.rows as T[];
+    },
+    close: async () => {
+      if (!client.closed) await client.close();
+    },
+  };
+}
