@@ -20,7 +20,7 @@ export function NotFoundPage({ home = '/' }: { home?: string }) {
 
 export function StandaloneNotFound() {
   return (
-    <main id="main" className="mx-auto max-w-3xl px-6 py-16">
+    <main id="main" className="mx-auto max-w-5xl px-6 py-16">
       <NotFoundPage />
     </main>
   );

@@ -3,7 +3,7 @@ import { Logo } from '../../components/ui/logo';
 import { cn } from '../../lib/cn';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
-  cn('rounded-field px-3 py-1.5 text-sm font-semibold no-underline', isActive ? 'bg-sunken text-ink' : 'text-ink hover:bg-sunken');
+  cn('rounded-field px-3 py-1.5 text-sm font-semibold no-underline', isActive ? 'bg-sunken text-ink underline decoration-2 decoration-focus underline-offset-4' : 'text-ink hover:bg-sunken');
 
 /** Header and footer for the pages anyone may open. */
 export function PublicLayout() {

@@ -22,7 +22,7 @@ export const PLACEHOLDERS: Record<SectionId, Placeholder> = {
   lab: {
     intro: 'The laboratory’s name, address and accreditation number as they are printed on every certificate, and the key certificates are signed with.',
     emptyTitle: 'Signing key',
-    empty: <p>No signing key details are shown here yet. The key’s holder, validity dates and fingerprint will be listed here once certificates can be signed.</p>,
+    empty: <p>The key that signs certificates is not listed on this page. Its holder, validity dates and fingerprint belong here, next to the details above.</p>,
   },
   mail: {
     intro: 'Every e-mail Emberline has sent, such as certificates to customer contacts, with its recipients and delivery result.',
@@ -35,7 +35,7 @@ export const PLACEHOLDERS: Record<SectionId, Placeholder> = {
     empty: <p>Each entry will give the time, the person, the action and the record it concerns.</p>,
   },
   templates: {
-    intro: 'Measurement models: the measurand, the model equations, the input quantities with their default distributions, CMC rows and the certificate wording. A model is drafted, validated, released (and then frozen) and finally retired.',
+    intro: 'Each measurement model sets out the measurand, the model equations, the input quantities with their default distributions, CMC rows and the certificate wording. A model is drafted, validated, released (and then frozen) and finally retired.',
     emptyTitle: 'No measurement models listed',
     empty: <p>Each model will show its name, version, state (draft, released or retired) and the date it was released.</p>,
   },

@@ -3,7 +3,7 @@ import { Notice } from '../../components/ui/notice';
 /** Public certificate check. The lookup itself is built with the certificates feature. */
 export function VerifyPage() {
   return (
-    <div className="mx-auto max-w-3xl px-6 py-12">
+    <div className="mx-auto max-w-5xl px-6 py-12">
       <h1 className="text-2xl font-semibold">Check a calibration certificate</h1>
       <p className="mt-3 max-w-prose text-ink-muted">
         A certificate issued through Emberline carries a certificate number and a fingerprint (SHA-256) of the
