@@ -54,7 +54,7 @@ export function parseUnitDimension(text: string): Dimension {
   try {
     u = mathUnit(t) as unknown;
   } catch (e) {
-    throw new Error(`unit "${text}" is not understood (${(e as Error).message})`);
+    throw new Error(`unit "${text}" is not understood (${(e as Error).message})`, { cause: e });
   }
   if ((u as { value: number | null }).value !== null) throw new Error(`unit "${text}" must not contain a number`);
   const dims = (u as { dimensions: number[] }).dimensions;

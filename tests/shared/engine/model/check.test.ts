@@ -1,0 +1,99 @@
+/**
+ * The allow-list check of the model language (DESIGN.md, "The model language"): every refusal
+ * names what is wrong and where (a 0-based character position), and nothing crashes.
+ * Expected positions are counted by hand from the equation text (common practice, no source).
+ */
+import { describe, expect, it } from 'vitest';
+import { checkEquations, MAX_EXPRESSION_LENGTH, MAX_NESTING } from '../../../../shared/engine/model/check';
+
+const known = ['x', 'T', 'lambda'];
+const one = (eq: string) => {
+  const r = checkEquations([eq], known);
+  expect(r.ok).toBe(false);
+  return r.errors[0];
+};
+
+describe('checkEquations: accepted models', () => {
+  it('accepts numbers, symbols, + - * / ^, unary minus, parentheses and the listed functions', () => {
+    const r = checkEquations(['a = -x^2 + 3*(x - 1)/2 + exp(x) + log(x) + log10(x) + sqrt(x) + abs(x)', 'b = sin(x) + cos(x) + tan(x) + asin(x) + acos(x) + atan(x) + min(x, 1) + max(x, a, 2)', 'L = planck(lambda, T) * c1L / c2 + sigma * h * c0 * kB + c2_its90 + pi + b'], known);
+    expect(r.errors).toEqual([]);
+    expect(r.ok).toBe(true);
+    expect(r.defines).toEqual(['a', 'b', 'L']);
+  });
+
+  it('accepts every radiometric function with its number of arguments', () => {
+    const r = checkEquations(['y = planck(lambda, T) + planck_nu(x, T) + planck_temperature(lambda, x) + band_radiance(lambda, x, T) + stefan_boltzmann(T) + wien_peak(T) + sh_signal(T, x, x, x) + sh_temperature(x, x, x, x) + its90_ratio(lambda, T, x)'], known);
+    expect(r.errors).toEqual([]);
+  });
+});
+
+describe('checkEquations: refusals with message and position', () => {
+  const cases: Array<[string, string, number, RegExp]> = [
+    ['y = foo + x', 'UNKNOWN_SYMBOL', 4, /unknown symbol "foo"/],
+    ['y = bar(x)', 'UNKNOWN_FUNCTION', 4, /unknown function "bar"/],
+    ['y = import("fs")', 'UNKNOWN_FUNCTION', 4, /unknown function "import"/],
+    ['y = x.constructor', 'FORBIDDEN_SYNTAX', 5, /property access "x.constructor"/],
+    ['y = x[1]', 'FORBIDDEN_SYNTAX', 5, /indexing/],
+    ['y = [1, 2]', 'FORBIDDEN_SYNTAX', 4, /matrices/],
+    ['y = "text"', 'FORBIDDEN_SYNTAX', 4, /strings/],
+    ['y = (z = 3) + x', 'FORBIDDEN_SYNTAX', 7, /assignment inside an expression/],
+    ['f(t) = t^2', 'FORBIDDEN_SYNTAX', 5, /function definitions/],
+    ['y = 1:3', 'FORBIDDEN_SYNTAX', 5, /ranges/],
+    ['y = x > 1 ? x : 1', 'FORBIDDEN_SYNTAX', 10, /conditional expressions/],
+    ['y = x mod 2', 'FORBIDDEN_SYNTAX', 6, /operator "mod"/],
+    ['y = 2x', 'FORBIDDEN_SYNTAX', 5, /implicit multiplication/],
+    ['y = {a: 1}', 'FORBIDDEN_SYNTAX', 4, /objects/],
+    ['y = true', 'FORBIDDEN_SYNTAX', 4, /not a number/],
+    ['y = x; z = 2', 'FORBIDDEN_SYNTAX', 5, /more than one statement/],
+    ['y = x +', 'PARSE_ERROR', 6, /cannot be read/],
+    ['x + 1', 'FORBIDDEN_SYNTAX', 0, /symbol = expression/],
+    ['y = planck(lambda)', 'FORBIDDEN_SYNTAX', 4, /planck takes 2 arguments \(lambda, T\), not 1/],
+    ['y = log(x, 2)', 'FORBIDDEN_SYNTAX', 4, /log takes 1 argument/],
+  ];
+  for (const [eq, code, position, message] of cases) {
+    it(`refuses ${JSON.stringify(eq)}`, () => {
+      const e = one(eq);
+      expect(e.code).toBe(code);
+      expect(e.message).toMatch(message);
+      expect(e.position).toBe(position);
+      expect(e.equation).toBe(0);
+      expect(e.length).toBeGreaterThanOrEqual(1);
+    });
+  }
+
+  it('refuses a 10^6-character expression before parsing it', () => {
+    const e = one(`y = ${'x + '.repeat(250_000)}x`);
+    expect(e.code).toBe('TOO_LARGE');
+    expect(e.message).toMatch(new RegExp(`at most ${MAX_EXPRESSION_LENGTH}`));
+  });
+
+  it('refuses deeply nested parentheses before parsing, pointing at the first bracket too deep', () => {
+    const eq = `y = ${'('.repeat(MAX_NESTING + 1)}x${')'.repeat(MAX_NESTING + 1)}`;
+    const e = one(eq);
+    expect(e.code).toBe('TOO_LARGE');
+    expect(e.position).toBe(4 + MAX_NESTING);
+    expect(checkEquations([`y = ${'('.repeat(MAX_NESTING)}x${')'.repeat(MAX_NESTING)}`], known).ok).toBe(true);
+  });
+
+  it('refuses a long chain of unary minus (deep tree) without crashing', () => {
+    const e = one(`y = ${'-'.repeat(5000)}x`);
+    expect(e.code).toBe('TOO_LARGE');
+  });
+
+  it('names a symbol used before the equation that defines it', () => {
+    const r = checkEquations(['a = b + x', 'b = 2 * x'], known);
+    expect(r.errors[0]).toMatchObject({ equation: 0, position: 4, code: 'UNKNOWN_SYMBOL' });
+    expect(r.errors[0].message).toMatch(/"b" is used before it is defined \(by equation 2\)/);
+  });
+
+  it('refuses redefining an input or an earlier intermediate', () => {
+    expect(checkEquations(['x = 2 * T'], known).errors[0].message).toMatch(/redefines "x"/);
+    expect(checkEquations(['a = x', 'a = T'], known).errors[0].message).toMatch(/defines "a" again/);
+  });
+
+  it('reports the equation index of a problem in a later equation', () => {
+    const r = checkEquations(['a = x', 'b = a + nope'], known);
+    expect(r.errors).toHaveLength(1);
+    expect(r.errors[0]).toMatchObject({ equation: 1, position: 8, length: 4 });
+  });
+});
