@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
-export const DEMO_PASSWORD = 'ember-demo-2026';
+export const DEMO_PASSWORD = 'emberline-demo';
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
