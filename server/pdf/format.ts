@@ -1,0 +1,122 @@
+/**
+ * Certificate wording of numbers, dates and symbols. Number formatting itself comes from
+ * shared/format (ISO 80000-1 / SI Brochure conventions); this file composes the certificate's
+ * phrases from it.
+ */
+import { formatNumber, GROUP_SEPARATOR, MINUS } from '../../shared/format/number';
+
+/** U+2009 THIN SPACE is not used inside numbers (see shared/format); U+00A0 keeps "0.28 K" together. */
+const NBSP = '\u00A0';
+
+/**
+ * An engine `reported` string ("-0.28", "1234.5") as printed: U+2212 for the minus sign and
+ * thin-space digit groups from five integer digits on, digits otherwise untouched.
+ */
+export function printReported(s: string): string {
+  const trimmed = s.trim();
+  const negative = trimmed.startsWith('-') || trimmed.startsWith(MINUS);
+  const body = negative ? trimmed.slice(1) : trimmed;
+  const [int, frac] = body.split('.');
+  const grouped = int.length >= 5 ? int.replace(/\B(?=(\d{3})+(?!\d))/g, GROUP_SEPARATOR) : int;
+  return `${negative ? MINUS : ''}${frac === undefined ? grouped : `${grouped}.${frac}`}`;
+}
+
+/** "0.28 K"; a unit is always separated by a space, including "%" (SI Brochure §5.4.3). */
+export function withUnit(value: string, unit: string): string {
+  return unit ? `${value}${NBSP}${unit}` : value;
+}
+
+/** Coverage probability as the certificate says it: 0.9545 → "95 %", 0.9973 → "99.7 %". */
+export function coveragePercent(p: number): string {
+  const pct = p * 100;
+  const rounded = Math.abs(pct - Math.round(pct)) < 0.6 ? Math.round(pct).toString() : pct.toFixed(1);
+  return `${rounded}${NBSP}%`;
+}
+
+/** "k = 2.01, p ≈ 95 %" (ISO/IEC 17025:2017 7.8.4.1, ILAC-P14: k and coverage probability stated). */
+export function coverageClause(k: string, p: number): string {
+  return `k = ${k}, p ≈ ${coveragePercent(p)}`;
+}
+
+/** Value ± U with the unit once at the end when both share it: "0.28 ± 0.22 K". */
+export function plusMinus(value: string, U: string, unit: string): string {
+  return withUnit(`${printReported(value)} ± ${printReported(U)}`, unit);
+}
+
+/** Any number in a table: `digits` significant digits, × 10ⁿ outside 10⁻³ … 10⁶. */
+export function num(value: number, digits?: number): string {
+  return formatNumber(value, digits === undefined ? {} : { digits });
+}
+
+/** Fixed decimals (a value rounded to the place of its uncertainty). */
+export function fixed(value: number, decimals: number): string {
+  return formatNumber(value, { decimals, notation: 'fixed' });
+}
+
+/** Number of decimals shown by a formatted value ("0.22" → 2). */
+export function decimalsOf(s: string): number {
+  const i = s.indexOf('.');
+  return i < 0 ? 0 : s.length - i - 1;
+}
+
+/** Degrees of freedom: integer, or ∞. */
+export function dof(v: number | 'infinite' | null): string {
+  if (v === null) return 'n/a';
+  if (v === 'infinite' || !Number.isFinite(v)) return '∞';
+  return v >= 1e6 ? formatNumber(v, { digits: 2 }) : formatNumber(Math.floor(v + 1e-9), { decimals: 0 });
+}
+
+/** Share 0…1 as a percentage with one decimal, "12.3 %". */
+export function percent(share: number): string {
+  return `${(share * 100).toFixed(1)}${NBSP}%`;
+}
+
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** "2026-11-24" → "24 November 2026": unambiguous in any locale. */
+export function longDate(iso: string): string {
+  const [y, m, d] = iso.slice(0, 10).split('-').map(Number);
+  return `${d} ${MONTHS[m - 1]} ${y}`;
+}
+
+/** One day, or "19 to 20 November 2026" / "30 November to 2 December 2026". */
+export function dateRange(from: string, to?: string): string {
+  if (!to || to === from) return longDate(from);
+  const [fy, fm] = from.split('-');
+  const [ty, tm] = to.split('-');
+  const [, , fd] = from.split('-').map(Number);
+  if (fy === ty && fm === tm) return `${fd} to ${longDate(to)}`;
+  if (fy === ty) return `${longDate(from).replace(` ${fy}`, '')} to ${longDate(to)}`;
+  return `${longDate(from)} to ${longDate(to)}`;
+}
+
+/** "2026-11-24T09:41:00Z" → "24 November 2026, 09:41 UTC". */
+export function dateTimeUtc(iso: string): string {
+  const d = new Date(iso);
+  const date = d.toISOString().slice(0, 10);
+  return `${longDate(date)}, ${d.toISOString().slice(11, 16)} UTC`;
+}
+
+const GREEK: Record<string, string> = {
+  alpha: 'α', beta: 'β', gamma: 'γ', delta: 'δ', Delta: 'Δ', eps: 'ε', epsilon: 'ε', theta: 'θ',
+  lambda: 'λ', mu: 'μ', nu: 'ν', rho: 'ρ', sigma: 'σ', tau: 'τ', phi: 'φ', omega: 'ω', Omega: 'Ω',
+};
+
+/**
+ * A model-language identifier split for typesetting (ISO 80000-1 §7.1: quantity symbols in
+ * italics, descriptive subscripts upright). "T_ref" → { base: "T", sub: "ref" }; "lambda" → λ;
+ * a leading "d" before a capital or a Greek name is read as a correction δ ("dT_res" → δT, res;
+ * "deps" → δε).
+ */
+export function symbolParts(symbol: string): { base: string; sub: string } {
+  const [rawBase, ...rest] = symbol.split('_');
+  const sub = rest.join(',');
+  const greek = (s: string): string | undefined => GREEK[s];
+  let base = greek(rawBase) ?? rawBase;
+  if (base === rawBase && rawBase.length > 1 && rawBase.startsWith('d')) {
+    const tail = rawBase.slice(1);
+    if (greek(tail)) base = `δ${greek(tail)}`;
+    else if (/^[A-Z][A-Za-z]?$/.test(tail)) base = `δ${tail}`;
+  }
+  return { base, sub };
+}
