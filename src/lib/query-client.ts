@@ -1,4 +1,4 @@
-import { QueryClient } from '@tanstack/react-query';
+import { QueryCache, QueryClient } from '@tanstack/react-query';
 import { ApiError } from './api-client';
 
 /** Client errors (4xx) are answers, not hiccups: retrying them only delays the message. */
@@ -7,8 +7,18 @@ function shouldRetry(failureCount: number, error: unknown): boolean {
   return failureCount < 2;
 }
 
-export function createQueryClient(): QueryClient {
+export interface QueryClientHooks {
+  /** A query answered 401: the session has ended (expired, or signed out in another tab). */
+  onUnauthorized?: () => void;
+}
+
+export function createQueryClient(hooks: QueryClientHooks = {}): QueryClient {
   return new QueryClient({
+    queryCache: new QueryCache({
+      onError: (error) => {
+        if (error instanceof ApiError && error.status === 401) hooks.onUnauthorized?.();
+      },
+    }),
     defaultOptions: {
       queries: { staleTime: 30_000, retry: shouldRetry, refetchOnWindowFocus: false },
       mutations: { retry: false },

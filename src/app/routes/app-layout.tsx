@@ -57,7 +57,11 @@ export function AppLayout() {
                     }
                   >
                     <span>{section.label}</span>
-                    {isViewOnly(section, user.role!) && <span className="text-xs font-normal text-night-ink-muted">view only</span>}
+                    {isViewOnly(section, user.role!) && (
+                      <span className="text-xs font-normal text-night-ink-muted">
+                        <span className="sr-only">, </span>view only
+                      </span>
+                    )}
                   </NavLink>
                 </li>
               ))}
