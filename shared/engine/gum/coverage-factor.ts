@@ -5,7 +5,9 @@
  * loses accuracy — ν = 10^9 gives 1.9956 instead of 2.0000, STACK-NOTES #10; the difference
  * between t_p(10^6) and the normal quantile is below 10^-5).
  */
-import { jStat } from 'jstat';
+import jstat from 'jstat';
+
+const { jStat } = jstat;
 
 /** Above this ν the normal quantile is used. */
 export const LARGE_DOF = 1e6;

@@ -4,7 +4,9 @@
  * against jstat (npm reference library) for every ν = 1…100; ν = 10^9 and ∞ give 2.000.
  */
 import { describe, expect, it } from 'vitest';
-import { jStat } from 'jstat';
+import jstat from 'jstat';
+
+const { jStat } = jstat;
 import { coverageFactor, truncateDof } from '../../../../shared/engine/gum/coverage-factor';
 
 const TABLE_G2: Array<[number, number, number]> = [
