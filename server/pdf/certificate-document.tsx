@@ -14,7 +14,7 @@ import type { ReactNode } from 'react';
 import { Document, Page, StyleSheet, Text, View, type Styles } from '@react-pdf/renderer';
 import type { CertificateAnnex, CertificateData, CertificateResultPoint, ConformityResult } from '../../shared/schemas/certificate.schema';
 import { MONO, SANS } from './fonts';
-import { coverageClause, dateRange, dateTimeUtc, decimalsOf, dof, fixed, longDate, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
+import { coverageClause, coverageProbability, dateRange, dateTimeUtc, decimalsOf, dof, fixed, longDate, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
 import { McmHistogram } from './histogram';
 import { palette, size } from './theme';
 
@@ -157,7 +157,7 @@ function Footer({ data }: { data: CertificateData }) {
 /** The reported result as UI-NOTES prescribes: "y ± U unit (k = 2.01, p ≈ 95 %)". */
 function resultText(p: CertificateResultPoint): string {
   const pm = plusMinus(p.reported.value, p.reported.U, p.reported.unit || p.unit);
-  return p.reportedFrom === 'mcm' ? `${pm} (p ≈ ${Math.round(p.coverageProbability * 100)} %, Monte Carlo)` : `${pm} (${coverageClause(p.reported.k, p.coverageProbability)})`;
+  return p.reportedFrom === 'mcm' ? `${pm} (${coverageProbability(p.coverageProbability)}, Monte Carlo)` : `${pm} (${coverageClause(p.reported.k, p.coverageProbability)})`;
 }
 
 /** An environmental condition as "23.1 ± 0.5 °C": U to at most two significant digits, the value to its decimal place. */

@@ -9,9 +9,13 @@
  *   Noto Sans Latin → Noto Sans Greek → DejaVu Sans (which covers the rest).
  * - Files are resolved with createRequire so that they are found both under tsx and from the
  *   esbuild bundle in dist/ (node_modules stays beside the project in both cases).
+ * - Each .woff is unpacked to a plain sfnt once and handed to react-pdf as a data URL: fontkit
+ *   re-inflates WOFF tables on every read, which made a render take seconds (see ./woff.ts).
  */
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { Font } from '@react-pdf/renderer';
+import { woffToSfnt } from './woff';
 
 const require = createRequire(import.meta.url);
 
@@ -39,13 +43,17 @@ export const MONO = ['Noto Sans Mono', 'Noto Sans Mono Greek', 'Noto Sans', 'Not
 
 let registered = false;
 
+function sfntDataUrl(woffPath: string): string {
+  return `data:font/ttf;base64,${woffToSfnt(readFileSync(woffPath)).toString('base64')}`;
+}
+
 /** Registers the families once per process (worker threads each register their own). */
 export function registerCertificateFonts(): void {
   if (registered) return;
   for (const [family, list] of Object.entries(FAMILIES)) {
     Font.register({
       family,
-      fonts: list.map((f) => ({ src: require.resolve(f.file), fontWeight: f.fontWeight, fontStyle: f.fontStyle })),
+      fonts: list.map((f) => ({ src: sfntDataUrl(require.resolve(f.file)), fontWeight: f.fontWeight, fontStyle: f.fontStyle })),
     });
   }
   // Certificates break words only at spaces: no automatic hyphenation of names or serial numbers.

@@ -3,7 +3,7 @@
  * shared/format (ISO 80000-1 / SI Brochure conventions); this file composes the certificate's
  * phrases from it.
  */
-import { formatNumber, GROUP_SEPARATOR, MINUS } from '../../shared/format/number';
+import { formatCoverageProbability, formatNumber, formatUnit, groupDigits, MINUS } from '../../shared/format';
 
 /** U+2009 THIN SPACE is not used inside numbers (see shared/format); U+00A0 keeps "0.28 K" together. */
 const NBSP = '\u00A0';
@@ -16,26 +16,26 @@ export function printReported(s: string): string {
   const trimmed = s.trim();
   const negative = trimmed.startsWith('-') || trimmed.startsWith(MINUS);
   const body = negative ? trimmed.slice(1) : trimmed;
-  const [int, frac] = body.split('.');
-  const grouped = int.length >= 5 ? int.replace(/\B(?=(\d{3})+(?!\d))/g, GROUP_SEPARATOR) : int;
-  return `${negative ? MINUS : ''}${frac === undefined ? grouped : `${grouped}.${frac}`}`;
+  return `${negative ? MINUS : ''}${groupDigits(body)}`;
 }
 
-/** "0.28 K"; a unit is always separated by a space, including "%" (SI Brochure §5.4.3). */
+/**
+ * "0.28 K", "W m⁻² sr⁻¹ nm⁻¹" units via shared/format; a unit is always separated by a space,
+ * including "%" (SI Brochure §5.4.3), here a no-break one.
+ */
 export function withUnit(value: string, unit: string): string {
-  return unit ? `${value}${NBSP}${unit}` : value;
-}
-
-/** Coverage probability as the certificate says it: 0.9545 → "95 %", 0.9973 → "99.7 %". */
-export function coveragePercent(p: number): string {
-  const pct = p * 100;
-  const rounded = Math.abs(pct - Math.round(pct)) < 0.6 ? Math.round(pct).toString() : pct.toFixed(1);
-  return `${rounded}${NBSP}%`;
+  const shown = formatUnit(unit);
+  return shown ? `${value}${NBSP}${shown}` : value;
 }
 
 /** "k = 2.01, p ≈ 95 %" (ISO/IEC 17025:2017 7.8.4.1, ILAC-P14: k and coverage probability stated). */
 export function coverageClause(k: string, p: number): string {
-  return `k = ${k}, p ≈ ${coveragePercent(p)}`;
+  return `k = ${k}, ${formatCoverageProbability(p)}`;
+}
+
+/** "p ≈ 95 %". */
+export function coverageProbability(p: number): string {
+  return formatCoverageProbability(p);
 }
 
 /** Value ± U with the unit once at the end when both share it: "0.28 ± 0.22 K". */

@@ -1,0 +1,44 @@
+/**
+ * Monte Carlo evaluation of one budget document in a worker thread (piscina), so the API's
+ * event loop stays free while 10^6–10^7 trials run (bundled by server/build.mjs to
+ * dist/server/workers/mcm.worker.js).
+ *
+ * Progress and cancellation share one SharedArrayBuffer with the main thread (it is shared, not
+ * copied, when the task is posted): BigInt64 slots [0] cancel flag, [1] trials done, [2] target.
+ * The engine reports progress after each chunk and polls `isCancelled` between chunks.
+ */
+import { evaluate, EngineError, type EvaluationResult } from '../../shared/engine';
+import { taskHandler } from './task-handler';
+
+export type McmTask = {
+  doc: unknown;
+  trials: number;
+  seed: number;
+  shared: SharedArrayBuffer;
+};
+
+export type McmTaskResult = { ok: true; result: EvaluationResult } | { ok: false; code: string; message: string };
+
+export const MCM_SLOT = { cancel: 0, done: 1, target: 2 } as const;
+export const MCM_SHARED_BYTES = 3 * 8;
+
+export function runMcm(task: McmTask): McmTaskResult {
+  const slots = new BigInt64Array(task.shared);
+  try {
+    const result = evaluate(task.doc, {
+      trials: task.trials,
+      seed: task.seed,
+      onProgress: (done, target) => {
+        Atomics.store(slots, MCM_SLOT.target, BigInt(target));
+        Atomics.store(slots, MCM_SLOT.done, BigInt(done));
+      },
+      isCancelled: () => Atomics.load(slots, MCM_SLOT.cancel) === 1n,
+    });
+    return { ok: true, result };
+  } catch (err) {
+    if (err instanceof EngineError) return { ok: false, code: err.code, message: err.message };
+    return { ok: false, code: 'WORKER_FAILED', message: err instanceof Error ? err.message : String(err) };
+  }
+}
+
+export default taskHandler({ 'monte-carlo': (payload: McmTask) => runMcm(payload) });
