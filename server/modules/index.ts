@@ -21,8 +21,8 @@ export function registerModules(router: Router, deps: AppDeps): void {
   const customersRepo = createCustomersRepository(db);
   const usersRepo = createUsersRepository(db);
 
-  const lab = createLabService({ labRepo, clock: deps.clock });
-  const users = createUsersService({ usersRepo, customersRepo, auth: deps.auth, clock: deps.clock });
+  const lab = createLabService({ db, labRepo, clock: deps.clock });
+  const users = createUsersService({ db, usersRepo, customersRepo, auth: deps.auth, clock: deps.clock });
 
   router.use('/health', healthRoutes(deps));
   router.use('/lab', labRoutes(lab));

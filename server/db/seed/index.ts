@@ -39,7 +39,7 @@ const customersStep: SeedStep = {
 const usersStep: SeedStep = {
   name: 'demo-users',
   async run({ db, auth, clock }) {
-    const users = createUsersService({ usersRepo: createUsersRepository(db), customersRepo: createCustomersRepository(db), auth, clock });
+    const users = createUsersService({ db, usersRepo: createUsersRepository(db), customersRepo: createCustomersRepository(db), auth, clock });
     for (const u of DEMO_USERS) {
       let customerId: string | null = null;
       if (u.customerKey) {

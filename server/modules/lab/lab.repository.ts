@@ -8,8 +8,8 @@ const EMPTY: LabSettings = { name: 'Calibration laboratory', address: '', accred
 export function createLabRepository(db: Db) {
   return {
     /** The settings row, or neutral defaults before anyone saved one. */
-    async get(): Promise<LabSettings> {
-      const [row] = await db.select().from(labSettings).where(eq(labSettings.id, 1));
+    async get(tx: Db = db): Promise<LabSettings> {
+      const [row] = await tx.select().from(labSettings).where(eq(labSettings.id, 1));
       if (!row) return EMPTY;
       return {
         name: row.name,

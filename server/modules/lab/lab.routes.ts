@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { labSettingsInputSchema, type LabSettingsInput } from '../../../shared/schemas/lab.schema';
-import { requireRole } from '../../auth/require-role';
+import { auditActor } from '../../audit';
+import { currentUser, requireRole } from '../../auth/require-role';
 import { validate } from '../../middleware/validate';
 import type { LabService } from './lab.service';
 
@@ -14,7 +15,7 @@ export function labRoutes(lab: LabService): Router {
     res.json({ lab: await lab.getSettings() });
   });
   r.put('/', requireRole('admin'), validate({ body: labSettingsInputSchema }), async (req, res) => {
-    res.json({ lab: await lab.updateSettings(req.body as LabSettingsInput) });
+    res.json({ lab: await lab.updateSettings(req.body as LabSettingsInput, auditActor(currentUser(res))) });
   });
   return r;
 }

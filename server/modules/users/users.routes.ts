@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { createUserInputSchema, type CreateUserInput } from '../../../shared/schemas/users.schema';
-import { requireRole } from '../../auth/require-role';
+import { auditActor } from '../../audit';
+import { currentUser, requireRole } from '../../auth/require-role';
 import { validate } from '../../middleware/validate';
 import type { UsersService } from './users.service';
 
@@ -12,7 +13,7 @@ export function usersRoutes(users: UsersService): Router {
     res.json({ users: await users.list() });
   });
   r.post('/', validate({ body: createUserInputSchema }), async (req, res) => {
-    res.status(201).json({ user: await users.create(req.body as CreateUserInput) });
+    res.status(201).json({ user: await users.create(req.body as CreateUserInput, undefined, auditActor(currentUser(res))) });
   });
   return r;
 }

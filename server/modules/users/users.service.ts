@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import type { Auth } from '../../auth/auth';
+import { recordAudit, type AuditActor } from '../../audit';
 import type { Db } from '../../db/client';
 import { ConflictError, ValidationError } from '../../errors/app-error';
 import type { CreateUserInput, UserSummary } from '../../../shared/schemas/users.schema';
@@ -13,12 +14,13 @@ export async function hashPassword(auth: Auth, password: string): Promise<string
 }
 
 export function createUsersService(deps: {
+  db: Db;
   usersRepo: UsersRepository;
   customersRepo: CustomersRepository;
   auth: Auth;
   clock: () => Date;
 }) {
-  return {
+  const service = {
     list(): Promise<UserSummary[]> {
       return deps.usersRepo.list();
     },
@@ -28,7 +30,8 @@ export function createUsersService(deps: {
      * account gets a long random one nobody knows; issue 7 adds the invitation e-mail that lets
      * the person choose theirs.
      */
-    async create(input: CreateUserInput, tx?: Db): Promise<UserSummary> {
+    async create(input: CreateUserInput, tx?: Db, actor: AuditActor | null = null): Promise<UserSummary> {
+      if (!tx) return deps.db.transaction((t) => service.create(input, t, actor));
       if (await deps.usersRepo.findIdByEmail(input.email, tx)) {
         throw new ConflictError(`A user with the e-mail ${input.email} already exists.`, 'EMAIL_TAKEN');
       }
@@ -44,8 +47,10 @@ export function createUsersService(deps: {
       );
       const found = await deps.usersRepo.findSummary(id, tx);
       if (!found) throw new Error('The new user was not found after creation.');
+      await recordAudit(tx, { actor, action: 'create', entity: 'user', entityId: id, after: found, at: now });
       return found;
     },
   };
+  return service;
 }
 export type UsersService = ReturnType<typeof createUsersService>;
