@@ -1,7 +1,11 @@
 import type { Distribution } from '../types';
-import { sampleGamma } from './gamma';
+import { sampleGamma as sampleGammaImported } from './gamma';
 import { resolveDistribution, type Resolved } from './resolve';
-import { fillStandardNormal, nextStandardNormal, type RandomSource } from './standard-normal';
+import { fillStandardNormal as fillNormalImported, nextStandardNormal as nextNormalImported, type RandomSource } from './standard-normal';
+
+// Module-local copies of imported functions: some loaders (tsx) turn imported bindings into
+// getter calls, which costs in per-trial loops.
+const sampleGamma = sampleGammaImported, nextStandardNormal = nextNormalImported, fillStandardNormal = fillNormalImported;
 
 /** Fills a column of Monte Carlo draws of one input from a random source. */
 export interface ColumnSampler {

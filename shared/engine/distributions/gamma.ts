@@ -1,4 +1,6 @@
-import { nextStandardNormal, type RandomSource } from './standard-normal';
+import { nextStandardNormal as nextNormalImported, type RandomSource } from './standard-normal';
+
+const nextStandardNormal = nextNormalImported; // module-local: fast per-trial calls under every loader
 
 /**
  * One Gamma(shape k, scale 1) variate by Marsaglia & Tsang (ACM Trans. Math. Softw. 26(3) (2000)

@@ -1,5 +1,8 @@
-import { c1L, c2 } from './constants';
-import { planck } from './planck';
+import { c1L as C1L_SI, c2 as C2_SI } from './constants';
+import { planck as planckSI } from './planck';
+
+// Module-local copies: some loaders (tsx) turn imported bindings into getter calls in hot loops.
+const c1L = C1L_SI, c2 = C2_SI, planck = planckSI;
 
 const PI4_15 = Math.PI ** 4 / 15; // ∫₀^∞ t³/(eᵗ − 1) dt = 6ζ(4) = π⁴/15
 

@@ -1,4 +1,6 @@
-import { c2_its90 } from './constants';
+import { c2_its90 as C2_ITS90 } from './constants';
+
+const c2_its90 = C2_ITS90; // module-local copy (fast in hot loops under every loader)
 
 /**
  * ITS-90 spectral radiance ratio above the silver point (Preston-Thomas, Metrologia 27 (1990)

@@ -1,4 +1,7 @@
-import { c0, h, kB } from './constants';
+import { c0 as C0_SI, h as H_SI, kB as KB_SI } from './constants';
+
+// Module-local copies: some loaders (tsx) turn imported bindings into getter calls in hot loops.
+const c0 = C0_SI, h = H_SI, kB = KB_SI;
 
 /**
  * Planck's law, spectral radiance per unit frequency:

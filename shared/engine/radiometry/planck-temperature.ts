@@ -1,4 +1,7 @@
-import { c1L, c2 } from './constants';
+import { c1L as C1L_SI, c2 as C2_SI } from './constants';
+
+// Module-local copies: some loaders (tsx) turn imported bindings into getter calls in hot loops.
+const c1L = C1L_SI, c2 = C2_SI;
 
 /**
  * Radiance temperature: the inverse of Planck's law in T,

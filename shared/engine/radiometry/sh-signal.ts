@@ -1,4 +1,6 @@
-import { c2 } from './constants';
+import { c2 as C2_SI } from './constants';
+
+const c2 = C2_SI; // module-local copy (fast in hot loops under every loader)
 
 /**
  * Sakuma–Hattori equation, Planck form (CCT-WG5 recommendation for interpolating radiation

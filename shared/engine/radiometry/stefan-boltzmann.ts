@@ -1,4 +1,6 @@
-import { sigma } from './constants';
+import { sigma as SIGMA_SI } from './constants';
+
+const sigma = SIGMA_SI; // module-local copy (fast in hot loops under every loader)
 
 /**
  * Stefan–Boltzmann law, radiant exitance of a blackbody: M = σT⁴ in W m⁻², with

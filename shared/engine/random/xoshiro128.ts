@@ -1,7 +1,24 @@
 import type { UniformSource } from '../types';
 
 const TWO_POW_26 = 67_108_864;
+const TWO_POW_28 = 268_435_456;
 const TWO_POW_M52 = 2 ** -52;
+
+/**
+ * Ziggurat tables for N(0,1), 128 layers (Marsaglia & Tsang, J. Stat. Softw. 5(8) 2000): with
+ * f(x) = exp(−x²/2), r = 3.442 619 855 899 and layer area v = 9.912 563 035 262 17e-3,
+ * X[1] = r, X[i+1] = f⁻¹(f(X[i]) + v/X[i]), X[128] = 0, and X[0] = v/f(r) the width of the base
+ * strip whose part beyond r is the tail. F[i] = f(X[i]).
+ */
+const ZIG_R = 3.442619855899;
+const ZIG_V = 9.91256303526217e-3;
+const ZX = new Float64Array(129);
+const ZF = new Float64Array(129);
+ZX[0] = ZIG_V / Math.exp(-0.5 * ZIG_R * ZIG_R);
+ZX[1] = ZIG_R;
+for (let i = 1; i < 127; i++) ZX[i + 1] = Math.sqrt(-2 * Math.log(ZIG_V / ZX[i] + Math.exp(-0.5 * ZX[i] * ZX[i])));
+ZX[128] = 0;
+for (let i = 0; i <= 128; i++) ZF[i] = Math.exp(-0.5 * ZX[i] * ZX[i]);
 
 /**
  * xoshiro128** 1.1 (Blackman & Vigna, "Scrambled linear pseudorandom number generators",
@@ -18,17 +35,21 @@ const TWO_POW_M52 = 2 ** -52;
  *   k = (a ≫ 6)·2^26 + (b ≫ 6)  from two consecutive 32-bit outputs a, b (52 random bits),
  *   u = (k + ½)·2^−52 ∈ [2^−53, 1 − 2^−53]   — never 0 or 1, exactly representable.
  *
- * Normal variates: Marsaglia polar method (Marsaglia & Bray 1964, SIAM Review 6(3) 260–264), the
- * rejection form of the Box–Muller transform of JCGM 101 §C.4: v1, v2 ~ U(−1,1), s = v1² + v2²,
- * accept 0 < s < 1, z1,2 = v1,2·√(−2 ln s / s). No trigonometric call; acceptance π/4.
- */
+ * Normal variates: the ziggurat method of Marsaglia & Tsang (J. Stat. Softw. 5(8) 2000), 128
+ * layers, with the layer index and sign taken from bits of the first 32-bit output that are not
+ * reused for the abscissa (the correction of Doornik 2005, "An improved ziggurat method to
+ * generate normal random samples"): word a gives layer i = a & 127 and the sign (bit 7); a ≫ 8
+ * and b ≫ 4 give a 52-bit u ∈ (0,1); x = u·X[i] is accepted at once when x < X[i+1] (≈ 98.8 %),
+ * else by the wedge test F[i] + u′(F[i+1] − F[i]) < f(x), or, in the base layer, from the tail
+ * beyond r by Marsaglia's (1964) exponential method. JCGM 101:2008 §C.4 gives Box–Muller; the
+ * ziggurat samples the same N(0,1) exactly, with no trigonometric or logarithm call on the fast
+ * path. Each variate consumes the stream in order (no cached spare), so any chunking gives the
+ * same values. */
 export class Xoshiro128StarStar implements UniformSource {
   private s0: number;
   private s1: number;
   private s2: number;
   private s3: number;
-  private spare = 0;
-  private hasSpare = false;
 
   /** Four 32-bit words of state, not all zero (use `createStreams` to seed from a number). */
   constructor(state: readonly [number, number, number, number]) {
@@ -78,65 +99,54 @@ export class Xoshiro128StarStar implements UniformSource {
     this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
   }
 
-  /** One N(0,1) variate (polar method; the second of each pair is kept for the next call). */
+  /** One N(0,1) variate (ziggurat; see the class comment). */
   nextNormal(): number {
-    if (this.hasSpare) {
-      this.hasSpare = false;
-      return this.spare;
-    }
     for (;;) {
-      const v1 = 2 * this.next() - 1;
-      const v2 = 2 * this.next() - 1;
-      const s = v1 * v1 + v2 * v2;
-      if (s < 1 && s > 0) {
-        const f = Math.sqrt((-2 * Math.log(s)) / s);
-        this.spare = v2 * f;
-        this.hasSpare = true;
-        return v1 * f;
-      }
+      const a = this.nextUint32();
+      const b = this.nextUint32();
+      const i = a & 127;
+      const x = ((a >>> 8) * TWO_POW_28 + (b >>> 4) + 0.5) * TWO_POW_M52 * ZX[i];
+      if (x < ZX[i + 1]) return a & 128 ? -x : x;
+      const z = this.slowNormal(i, x);
+      if (z === z) return a & 128 ? -z : z;
     }
   }
 
-  /**
-   * Fill out[0..n) with N(0,1) variates by the polar method, pairs written directly (a kept spare
-   * from `nextNormal` is used first, and an odd tail leaves a spare for the next call).
-   */
-  fillNormal(out: Float64Array, n: number): void {
-    let i = 0;
-    if (n > 0 && this.hasSpare) {
-      out[i++] = this.spare;
-      this.hasSpare = false;
+  /** Ziggurat outside the fast path: tail (layer 0) or wedge; NaN means "start again". */
+  private slowNormal(i: number, x: number): number {
+    if (i === 0) {
+      let t: number, y: number;
+      do {
+        t = -Math.log(this.next()) / ZIG_R;
+        y = -Math.log(this.next());
+      } while (y + y < t * t);
+      return ZIG_R + t;
     }
+    return ZF[i] + this.next() * (ZF[i + 1] - ZF[i]) < Math.exp(-0.5 * x * x) ? x : NaN;
+  }
+
+  /** Fill out[0..n) with N(0,1) variates: the same values as n calls of nextNormal(), faster. */
+  fillNormal(out: Float64Array, n: number): void {
     let s0 = this.s0, s1 = this.s1, s2 = this.s2, s3 = this.s3;
-    while (i < n) {
-      // Two uniforms on (−1, 1) from four 32-bit outputs, inlined as in fill().
+    for (let k = 0; k < n; ) {
       let r = Math.imul(s1, 5);
-      let a = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
+      const a = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
       let t = s1 << 9;
       s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
       r = Math.imul(s1, 5);
-      let b = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
+      const b = Math.imul((r << 7) | (r >>> 25), 9) >>> 4;
       t = s1 << 9;
       s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-      const v1 = 2 * ((a * TWO_POW_26 + b + 0.5) * TWO_POW_M52) - 1;
-      r = Math.imul(s1, 5);
-      a = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
-      t = s1 << 9;
-      s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-      r = Math.imul(s1, 5);
-      b = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
-      t = s1 << 9;
-      s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-      const v2 = 2 * ((a * TWO_POW_26 + b + 0.5) * TWO_POW_M52) - 1;
-      const s = v1 * v1 + v2 * v2;
-      if (s >= 1 || s === 0) continue;
-      const f = Math.sqrt((-2 * Math.log(s)) / s);
-      out[i++] = v1 * f;
-      if (i < n) out[i++] = v2 * f;
-      else {
-        this.spare = v2 * f;
-        this.hasSpare = true;
+      const i = a & 127;
+      const x = ((a >>> 8) * TWO_POW_28 + b + 0.5) * TWO_POW_M52 * ZX[i];
+      if (x < ZX[i + 1]) {
+        out[k++] = a & 128 ? -x : x;
+        continue;
       }
+      this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
+      const z = this.slowNormal(i, x);
+      s0 = this.s0; s1 = this.s1; s2 = this.s2; s3 = this.s3;
+      if (z === z) out[k++] = a & 128 ? -z : z;
     }
     this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
   }

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { Xoshiro128StarStar, createRandom, createStreams, splitMix64 } from '../../../../shared/engine/random';
 import reference from './fixtures/xoshiro-reference.json';
+import jstat from 'jstat';
+
+const jStat = jstat as unknown as { normal: { inv(p: number, m: number, s: number): number; cdf(x: number, m: number, s: number): number }; chisquare: { inv(p: number, k: number): number } };
 
 // Reference values: an independent Python implementation of the published algorithms
 // (Blackman & Vigna, ACM TOMS 47(4) 2021; Steele, Lea & Flood, OOPSLA 2014), committed as
@@ -61,7 +64,7 @@ describe('xoshiro128**', () => {
     expect(chi2).toBeLessThan(148.2);
   });
 
-  it('gives N(0,1) variates by the polar method with mean 0, variance 1, and a consistent spare', () => {
+  it('gives N(0,1) variates (ziggurat) with mean 0, variance 1, kurtosis 3, and nextNormal = fillNormal', () => {
     const n = 1_000_001;
     const out = new Float64Array(n);
     const g = createRandom(3);
@@ -71,11 +74,36 @@ describe('xoshiro128**', () => {
     expect(Math.abs(sum / n)).toBeLessThan(5 / Math.sqrt(n));
     expect(Math.abs(sum2 / n - 1)).toBeLessThan(5 * Math.sqrt(2 / n));
     expect(Math.abs(sum4 / n - 3)).toBeLessThan(5 * Math.sqrt(96 / n)); // E z⁴ = 3, var z⁴ = 96
-    // nextNormal and fillNormal draw from the same sequence of pairs.
+    // nextNormal and fillNormal draw the same sequence.
     const a = createRandom(5), b = createRandom(5);
     const col = new Float64Array(5);
     a.fillNormal(col, 5);
     expect(Array.from({ length: 5 }, () => b.nextNormal())).toEqual(Array.from(col));
+  });
+
+  it('normal variates follow Φ: chi-square over 60 cells of equal probability, and the tails beyond ±3, ±4', () => {
+    // Reference distribution function: jStat.normal.inv (jstat, npm); tail probabilities
+    // 2Φ(−3) = 0.002 699 8 and Φ(−4) = 3.167e-5 computed with jStat.normal.cdf.
+    const n = 2_000_000, cells = 60;
+    const out = new Float64Array(n);
+    createRandom(17).fillNormal(out, n);
+    const cuts = Array.from({ length: cells - 1 }, (_, i) => jStat.normal.inv((i + 1) / cells, 0, 1));
+    const counts = new Float64Array(cells);
+    let beyond3 = 0, above4 = 0;
+    for (let i = 0; i < n; i++) {
+      const z = out[i];
+      let lo = 0, hi = cells - 1;
+      while (lo < hi) { const m = (lo + hi) >> 1; if (z < cuts[m]) hi = m; else lo = m + 1; }
+      counts[lo]++;
+      if (Math.abs(z) > 3) beyond3++;
+      if (z > 4) above4++;
+    }
+    let chi2 = 0;
+    for (const c of counts) chi2 += (c - n / cells) ** 2 / (n / cells);
+    expect(chi2).toBeLessThan(jStat.chisquare.inv(0.999, cells - 1));
+    const p3 = 2 * jStat.normal.cdf(-3, 0, 1), p4 = jStat.normal.cdf(-4, 0, 1);
+    expect(Math.abs(beyond3 / n - p3)).toBeLessThan(5 * Math.sqrt(p3 / n));
+    expect(Math.abs(above4 / n - p4)).toBeLessThan(5 * Math.sqrt(p4 / n));
   });
 
   it('same seed → same stream; different seeds and different streams → different numbers', () => {
