@@ -7,6 +7,8 @@ import { createLabRepository } from './lab/lab.repository';
 import { labRoutes } from './lab/lab.routes';
 import { createLabService } from './lab/lab.service';
 import { meRoutes } from './me/me.routes';
+import { createTemplatesService } from './templates/templates.service';
+import { templatesRoutes } from './templates/templates.routes';
 import { createUsersRepository } from './users/users.repository';
 import { usersRoutes } from './users/users.routes';
 import { createUsersService } from './users/users.service';
@@ -29,4 +31,5 @@ export function registerModules(router: Router, deps: AppDeps): void {
   router.use('/me', meRoutes(lab));
   router.use('/users', usersRoutes(users));
   router.use('/customers', customersRoutes(customersRepo));
+  router.use('/templates', templatesRoutes(createTemplatesService({ db, clock: deps.clock })));
 }

@@ -161,3 +161,157 @@ export function shiftEstimate(d: Dist, value: number): Dist {
       return { ...d, value };
   }
 }
+
+/* ------------------------------------------------------------------------------------------
+ * API contracts of /api/templates (issue 4): versions, their validation record, list rows.
+ * ---------------------------------------------------------------------------------------- */
+
+export const TEMPLATE_STATUSES = ['draft', 'released', 'retired'] as const;
+export const templateStatusSchema = z.enum(TEMPLATE_STATUSES);
+export type TemplateStatus = z.infer<typeof templateStatusSchema>;
+
+/** Words shown for each status (status is always shown as text, UI-NOTES). */
+export const TEMPLATE_STATUS_LABELS: Record<TemplateStatus, string> = {
+  draft: 'Draft',
+  released: 'Released',
+  retired: 'Retired',
+};
+
+/** The checks release runs, in order (ISO/IEC 17025:2017 §7.2.2 validation of methods). */
+export const VALIDATION_CHECKS = ['schema', 'equations', 'symbols', 'units', 'evaluates', 'reference-case'] as const;
+export type ValidationCheckId = (typeof VALIDATION_CHECKS)[number];
+
+export const VALIDATION_CHECK_LABELS: Record<ValidationCheckId, string> = {
+  schema: 'The template document is complete and well-formed',
+  equations: 'Every equation can be read',
+  symbols: 'Every symbol is defined',
+  units: 'Units are consistent',
+  evaluates: 'The model evaluates at the default values',
+  'reference-case': 'The reference case reproduces within its tolerance',
+};
+
+const personSchema = z.object({ id: z.string(), name: z.string() });
+export type Person = z.infer<typeof personSchema>;
+
+export const validationMessageSchema = z.object({
+  message: z.string(),
+  path: z.array(z.union([z.string(), z.number()])).optional(),
+  /** 0-based equation index and character position, for equation problems. */
+  equation: z.number().int().optional(),
+  position: z.number().int().optional(),
+  length: z.number().int().optional(),
+});
+export type ValidationMessage = z.infer<typeof validationMessageSchema>;
+
+export const validationCheckSchema = z.object({
+  id: z.enum(VALIDATION_CHECKS),
+  label: z.string(),
+  /** null: not run because an earlier check failed. */
+  passed: z.boolean().nullable(),
+  messages: z.array(validationMessageSchema),
+});
+export type ValidationCheck = z.infer<typeof validationCheckSchema>;
+
+const gumSummarySchema = z.object({
+  y: z.number(),
+  u: z.number(),
+  U: z.number(),
+  k: z.number(),
+  nuEff: z.union([z.number(), z.literal('infinite'), z.null()]),
+  unit: z.string(),
+});
+
+/** What validation recorded: enough to show later what was checked, with what, by whom and when. */
+export const validationRecordSchema = z.object({
+  purpose: z.enum(['dry-run', 'release']),
+  passed: z.boolean(),
+  engineVersion: z.string(),
+  checkedAt: z.string(),
+  checkedBy: personSchema,
+  checks: z.array(validationCheckSchema),
+  /** Input estimates used at the defaults (symbol → value in the input's unit). */
+  inputs: z.record(z.string(), z.number()),
+  /** GUM result at the defaults; null when the model could not be evaluated. */
+  result: gumSummarySchema.nullable(),
+  /** The reference case: its inputs, what was expected and what the engine gave. */
+  referenceCase: z
+    .object({
+      source: z.string(),
+      inputs: z.record(z.string(), z.number()),
+      expected: z.object({ y: z.number(), u: z.number() }),
+      obtained: z.object({ y: z.number(), u: z.number() }).nullable(),
+      tolerance: z.object({ y: z.number(), uRel: z.number() }),
+    })
+    .nullable(),
+  warnings: z.array(z.string()),
+});
+export type ValidationRecord = z.infer<typeof validationRecordSchema>;
+
+export const templateVersionSchema = z.object({
+  id: z.string(),
+  templateId: z.string(),
+  key: z.string().nullable(),
+  version: z.number().int(),
+  status: templateStatusSchema,
+  definition: templateDefinitionSchema,
+  createdBy: personSchema.nullable(),
+  createdAt: z.string(),
+  updatedBy: personSchema.nullable(),
+  updatedAt: z.string(),
+  releasedBy: personSchema.nullable(),
+  releasedAt: z.string().nullable(),
+  retiredAt: z.string().nullable(),
+  validation: validationRecordSchema.nullable(),
+});
+export type TemplateVersion = z.infer<typeof templateVersionSchema>;
+
+export const templateVersionRefSchema = z.object({
+  id: z.string(),
+  version: z.number().int(),
+  status: templateStatusSchema,
+  updatedAt: z.string(),
+  releasedAt: z.string().nullable(),
+  retiredAt: z.string().nullable(),
+});
+export type TemplateVersionRef = z.infer<typeof templateVersionRefSchema>;
+
+/** One row of the template list: the template, its latest version and every version's state. */
+export const templateSummarySchema = z.object({
+  id: z.string(),
+  key: z.string().nullable(),
+  name: z.string(),
+  summary: z.string().nullable(),
+  measurand: z.object({ symbol: z.string(), unit: z.string().nullable() }),
+  createdAt: z.string(),
+  latest: templateVersionRefSchema,
+  versions: z.array(templateVersionRefSchema),
+});
+export type TemplateSummary = z.infer<typeof templateSummarySchema>;
+
+export const templateListResponseSchema = z.object({ templates: z.array(templateSummarySchema) });
+export const templateVersionResponseSchema = z.object({ version: templateVersionSchema });
+export const validationResponseSchema = z.object({ validation: validationRecordSchema });
+
+/** POST /api/templates: a name (a starter draft is made), or a whole definition. */
+export const createTemplateInputSchema = z
+  .object({ definition: templateDefinitionSchema.optional(), name: templateDefinitionObjectSchema.shape.name.optional() })
+  .strict()
+  .refine((b) => (b.definition === undefined) !== (b.name === undefined), { message: 'give either a name (a starter draft is made) or a whole definition' });
+export type CreateTemplateInput = z.infer<typeof createTemplateInputSchema>;
+
+/** PUT /api/templates/versions/:id (drafts only). */
+export const updateDraftInputSchema = z.object({ definition: templateDefinitionSchema }).strict();
+export type UpdateDraftInput = z.infer<typeof updateDraftInputSchema>;
+
+/** The draft a new template starts from: one input, one equation, to be replaced by the author. */
+export function starterDefinition(name: string): TemplateDefinition {
+  return {
+    name,
+    measurand: { symbol: 'y', unit: 'K', description: 'the measurand (describe it)' },
+    equations: ['y = x'],
+    inputs: [
+      { symbol: 'x', unit: 'K', description: 'an input quantity (describe it)', source: 'entered', distribution: { type: 'normal', mean: 0, sd: 0.1 } },
+    ],
+    certificate: { resultLabel: name, methodStatement: 'Describe the calibration method as the certificate should state it.' },
+  } as TemplateDefinition;
+}

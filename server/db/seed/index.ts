@@ -7,6 +7,7 @@ import { createLabRepository } from '../../modules/lab/lab.repository';
 import { createCustomersRepository } from '../../modules/customers/customers.repository';
 import { createUsersRepository } from '../../modules/users/users.repository';
 import { createUsersService } from '../../modules/users/users.service';
+import { shippedTemplatesSeedStep } from '../../modules/templates/shipped-templates';
 import { DEMO_CUSTOMERS, DEMO_LAB, DEMO_PASSWORD, DEMO_USERS } from './demo-data';
 
 /** What a seed step gets: `db` is the transaction the step runs in. */
@@ -53,7 +54,7 @@ const usersStep: SeedStep = {
 };
 
 /** The demo scenario in order. Later features append their steps here (templates, jobs, …). */
-export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep];
+export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, shippedTemplatesSeedStep];
 
 /** Runs every step not yet recorded in `seed_runs`. Returns the names of the steps that ran. */
 export async function runSeed(
