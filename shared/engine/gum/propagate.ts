@@ -5,6 +5,7 @@
  * note to 5.1.2 for uncorrelated inputs.
  */
 import type { BudgetDocument } from '../../schemas/budget.schema';
+import { correlationGroups } from '../distributions';
 import { EngineError } from '../errors';
 import type { CompiledModelDetails } from '../model/compile';
 import type { BudgetRow, GumResult, InputSummary } from '../types';
@@ -65,6 +66,9 @@ export function propagate(doc: BudgetDocument, model: CompiledModelDetails, summ
   const { c, method } = model.sensitivities(x, u);
   const r = correlationMatrix(doc);
   const correlated = (doc.correlations ?? []).some((k) => k.r !== 0);
+  // The same checks as Monte Carlo sampling (unknown symbols, non-normal inputs, a correlation
+  // matrix that is not positive definite), so the live GUM budget refuses what MCM would.
+  if (correlated) correlationGroups(doc);
 
   // u_c² = Σ_i Σ_j c_i c_j r_ij u_i u_j (GUM eq. 13 / eq. 16).
   let uc2 = 0;

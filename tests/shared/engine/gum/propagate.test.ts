@@ -124,6 +124,15 @@ describe('GUM with correlations and special cases', () => {
     expect(gum.uSecondOrder as number).toBeCloseTo(Math.SQRT2, 5);
   });
 
+  it('refuses a correlation matrix that is not positive definite, with a message', () => {
+    const doc = {
+      equations: ['y = a + b + c'],
+      inputs: ['a', 'b', 'c'].map((symbol) => ({ symbol, distribution: { type: 'normal', mean: 0, sd: 1 } })),
+      correlations: [{ between: ['a', 'b'], r: 0.9 }, { between: ['b', 'c'], r: 0.9 }, { between: ['a', 'c'], r: -0.9 }],
+    } as BudgetDocument;
+    expect(() => gumOf(doc)).toThrow(/positive definite/);
+  });
+
   it('welchSatterthwaite is "infinite" when every contribution has ν = ∞', () => {
     expect(welchSatterthwaite([1, 2], [Infinity, Infinity], Math.sqrt(5))).toBe('infinite');
   });
