@@ -71,9 +71,14 @@ export function scanTargets(equations: readonly string[]): Map<string, number> {
 }
 
 class Locator {
-  readonly tokens: Token[];
+  tokens: Token[];
   constructor(readonly text: string) {
     this.tokens = tokenize(text);
+  }
+  /** Search only after the first "=" from now on (the right side of `symbol = expression`). */
+  rightSide(): void {
+    const i = this.tokens.findIndex((t) => t.text === '=');
+    if (i >= 0) this.tokens = this.tokens.slice(i + 1);
   }
   /** First name token `name`; `call` true: followed by "(", false: not followed, undefined: either. */
   name(name: string, call?: boolean): { position: number; length: number } {
@@ -173,6 +178,7 @@ export function checkEquation(
     issue('FORBIDDEN_SYNTAX', `${eqName}: "${target}" is not a valid symbol (a letter, then letters, digits or _)`, loc.name(target));
   }
   const expr = root.value as AnyNode;
+  loc.rightSide();
   const symbols = new Set<string>();
   const libraryConstants = new Set<string>(LIBRARY_CONSTANT_NAMES);
 
@@ -255,10 +261,10 @@ export function checkEquation(
         issue('FORBIDDEN_SYNTAX', `${eqName}: objects ("${describe(node)}") are not allowed`, loc.op('{'));
         return;
       case 'AssignmentNode':
-        issue('FORBIDDEN_SYNTAX', `${eqName}: assignment inside an expression is not allowed; "=" appears once, after the symbol the equation defines`, loc.op('=', 1));
+        issue('FORBIDDEN_SYNTAX', `${eqName}: assignment inside an expression is not allowed; "=" appears once, after the symbol the equation defines`, loc.op('='));
         return;
       case 'FunctionAssignmentNode':
-        issue('FORBIDDEN_SYNTAX', `${eqName}: function definitions are not allowed`, loc.op('=', 1));
+        issue('FORBIDDEN_SYNTAX', `${eqName}: function definitions are not allowed`, loc.op('='));
         return;
       case 'RangeNode':
         issue('FORBIDDEN_SYNTAX', `${eqName}: ranges ("${describe(node)}") are not allowed`, loc.op(':'));

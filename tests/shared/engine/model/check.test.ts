@@ -86,6 +86,10 @@ describe('checkEquations: refusals with message and position', () => {
     expect(r.errors[0].message).toMatch(/"b" is used before it is defined \(by equation 2\)/);
   });
 
+  it('points at the right side when an equation uses its own symbol', () => {
+    expect(checkEquations(['y = y + 1'], known).errors[0]).toMatchObject({ position: 4, code: 'UNKNOWN_SYMBOL' });
+  });
+
   it('refuses redefining an input or an earlier intermediate', () => {
     expect(checkEquations(['x = 2 * T'], known).errors[0].message).toMatch(/redefines "x"/);
     expect(checkEquations(['a = x', 'a = T'], known).errors[0].message).toMatch(/defines "a" again/);
@@ -95,5 +99,24 @@ describe('checkEquations: refusals with message and position', () => {
     const r = checkEquations(['a = x', 'b = a + nope'], known);
     expect(r.errors).toHaveLength(1);
     expect(r.errors[0]).toMatchObject({ equation: 1, position: 8, length: 4 });
+  });
+});
+
+describe('checkEquations never crashes (property test, fast-check)', () => {
+  it('returns a result with in-range positions for arbitrary text', async () => {
+    const fc = (await import('fast-check')).default;
+    const alphabet = fc.constantFrom(...'xyT()[]{}.,;:?!=+-*/^%\'"0123456789e abc_\n'.split(''), 'exp(', 'import(', 'planck(', '==', '.*', 'mod', ' to ');
+    fc.assert(
+      fc.property(fc.array(alphabet, { maxLength: 60 }), (parts) => {
+        const eq = parts.join('');
+        const r = checkEquations([eq], known);
+        for (const e of r.errors) {
+          expect(e.position).toBeGreaterThanOrEqual(0);
+          expect(e.position).toBeLessThanOrEqual(Math.max(0, eq.length));
+          expect(e.message.length).toBeGreaterThan(0);
+        }
+      }),
+      { numRuns: 2000, seed: 20261201 },
+    );
   });
 });
