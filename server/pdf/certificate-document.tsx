@@ -14,7 +14,7 @@ import type { ReactNode } from 'react';
 import { Document, Page, StyleSheet, Text, View, type Styles } from '@react-pdf/renderer';
 import type { CertificateAnnex, CertificateData, CertificateResultPoint, ConformityResult } from '../../shared/schemas/certificate.schema';
 import { MONO, SANS } from './fonts';
-import { coverageClause, coverageProbability, dateRange, dateTimeUtc, decimalsOf, dof, fixed, longDate, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
+import { coverageProbability, dateRange, dateTimeUtc, decimalsOf, dof, fixed, longDate, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
 import { McmHistogram } from './histogram';
 import { palette, size } from './theme';
 
@@ -154,10 +154,27 @@ function Footer({ data }: { data: CertificateData }) {
   );
 }
 
-/** The reported result as UI-NOTES prescribes: "y ± U unit (k = 2.01, p ≈ 95 %)". */
-function resultText(p: CertificateResultPoint): string {
+/**
+ * The reported result as UI-NOTES prescribes, "y ± U unit (k = 2.01, p ≈ 95 %)", with k and p in
+ * italics (ISO 80000-1 §7.1). A Monte Carlo result has no coverage factor: its interval is stated.
+ */
+function Result({ point: p }: { point: CertificateResultPoint }) {
   const pm = plusMinus(p.reported.value, p.reported.U, p.reported.unit || p.unit);
-  return p.reportedFrom === 'mcm' ? `${pm} (${coverageProbability(p.coverageProbability)}, Monte Carlo)` : `${pm} (${coverageClause(p.reported.k, p.coverageProbability)})`;
+  const prob = coverageProbability(p.coverageProbability).replace(/^p /, ' ');
+  return (
+    <Text>
+      {`${pm} (`}
+      {p.reportedFrom === 'mcm' ? null : (
+        <>
+          <Italic>k</Italic>
+          {` = ${p.reported.k}, `}
+        </>
+      )}
+      <Italic>p</Italic>
+      {prob}
+      {p.reportedFrom === 'mcm' ? ', Monte Carlo)' : ')'}
+    </Text>
+  );
 }
 
 /** An environmental condition as "23.1 ± 0.5 °C": U to at most two significant digits, the value to its decimal place. */
@@ -239,7 +256,8 @@ function FirstPart({ data }: { data: CertificateData }) {
             cell: (r) => (
               <Text>
                 <Sym symbol={r.measurand.symbol} />
-                <Text>{` = ${resultText(r)}`}</Text>
+                <Text> = </Text>
+                <Result point={r} />
                 {r.outsideAccreditation ? <Text style={{ color: palette.accent }}> †</Text> : null}
                 {r.reportedFrom === 'mcm' || r.monteCarloNote ? <Text style={{ color: palette.accent }}> ‡</Text> : null}
               </Text>
@@ -250,7 +268,10 @@ function FirstPart({ data }: { data: CertificateData }) {
         rows={data.results}
       />
       <Text style={s.note}>
-        The expanded uncertainty <Text style={{ fontStyle: 'italic' }}>U</Text> is the combined standard uncertainty multiplied by the coverage factor <Text style={{ fontStyle: 'italic' }}>k</Text>; it was evaluated according to JCGM 100:2008 (GUM), and the interval y ± U contains the value of the measurand with a coverage probability of approximately 95 %. Each result is validated by the Monte Carlo method of JCGM 101:2008 (Annex A).
+        The expanded uncertainty <Italic>U</Italic> is the combined standard uncertainty multiplied by the coverage factor{' '}
+        <Italic>k</Italic>, evaluated according to JCGM 100:2008 (GUM); the interval <Italic>y</Italic> ± <Italic>U</Italic> contains
+        the value of the measurand with a coverage probability <Italic>p</Italic> of approximately 95 %. Each GUM result was checked
+        against the Monte Carlo method of JCGM 101:2008; budgets, distributions and the checks are given in Annex A.
       </Text>
       {anyOutside ? <Text style={s.note}>† Outside the laboratory's scope of accreditation.</Text> : null}
       {mcmPoints.map(({ r, i }) => (
@@ -350,7 +371,7 @@ function AnnexPoint({ point, index }: { point: CertificateResultPoint; index: nu
     <View style={s.annexPoint} wrap={false}>
       <View>
         <Text style={s.h3}>
-          Point {index + 1} · nominal {point.nominal.label} · <Sym symbol={point.measurand.symbol} /> = {resultText(point)}
+          Point {index + 1} · nominal {point.nominal.label} · <Sym symbol={point.measurand.symbol} /> = <Result point={point} />
         </Text>
         {annex.equations.length ? (
           <Text style={[s.small, { fontFamily: MONO, marginBottom: 2 }]}>Model: {annex.equations.join(';  ')}</Text>

@@ -5,7 +5,7 @@
  */
 import { formatCoverageProbability, formatNumber, formatUnit, groupDigits, MINUS } from '../../shared/format';
 
-/** U+2009 THIN SPACE is not used inside numbers (see shared/format); U+00A0 keeps "0.28 K" together. */
+/** U+00A0 NO-BREAK SPACE keeps a number and its unit on one line ("0.28 K"). */
 const NBSP = '\u00A0';
 
 /**
@@ -28,12 +28,7 @@ export function withUnit(value: string, unit: string): string {
   return shown ? `${value}${NBSP}${shown}` : value;
 }
 
-/** "k = 2.01, p ≈ 95 %" (ISO/IEC 17025:2017 7.8.4.1, ILAC-P14: k and coverage probability stated). */
-export function coverageClause(k: string, p: number): string {
-  return `k = ${k}, ${formatCoverageProbability(p)}`;
-}
-
-/** "p ≈ 95 %". */
+/** "p ≈ 95 %" (ISO/IEC 17025:2017 7.8.4.1, ILAC-P14: the coverage probability is stated). */
 export function coverageProbability(p: number): string {
   return formatCoverageProbability(p);
 }

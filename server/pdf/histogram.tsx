@@ -78,10 +78,11 @@ export function McmHistogram({ annex, symbol, unit, width = 250, height = 150 }:
         ) : null,
       )}
       {curve ? <Path d={curve} stroke={palette.accent} strokeWidth={1} fill="none" /> : null}
-      {marker(gum.interval[0], true, palette.accent, 'g0')}
-      {marker(gum.interval[1], true, palette.accent, 'g1')}
+      {/* Monte Carlo first, GUM dashed on top: where the two intervals agree both stay visible. */}
       {marker(mcm.interval[0], false, palette.ink, 'm0')}
       {marker(mcm.interval[1], false, palette.ink, 'm1')}
+      {marker(gum.interval[0], true, palette.accent, 'g0')}
+      {marker(gum.interval[1], true, palette.accent, 'g1')}
       <Line x1={m.left} x2={m.left + pw} y1={m.top + ph} y2={m.top + ph} stroke={palette.ink} strokeWidth={0.6} />
       <Line x1={m.left} x2={m.left} y1={m.top} y2={m.top + ph} stroke={palette.ink} strokeWidth={0.6} />
       {xTicks.map((t) => (

@@ -37,7 +37,7 @@ beforeAll(async () => {
   identity = await ensureSigningIdentity({ dataDir: join(dir, 'data'), labName: demoCertificate.lab.name });
   signed = await signPdf(unsigned, identity, SIGN_INFO);
   signedPath = writeTemp(dir, 'signed.pdf', signed);
-});
+}, 180_000);
 
 describe('certificate PDF content (ISO/IEC 17025:2017 7.8.2.1 and 7.8.4.1)', () => {
   it('when rendered for three points, then it is a PDF of two to four pages', () => {
@@ -158,7 +158,7 @@ describe('certificate PDF content (ISO/IEC 17025:2017 7.8.2.1 and 7.8.4.1)', () 
     expect(text[0]).toContain('this certificate replaces certificate HVR-2026-0417.');
     expect(text[0]).toContain('The serial number of the item was misprinted.');
     text.forEach((p) => expect(p).toContain('HVR-2026-0417-A1'));
-  });
+  }, 120_000);
 });
 
 describe('signature and authenticity', () => {

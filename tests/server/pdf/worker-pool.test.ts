@@ -22,7 +22,8 @@ describe('worker pool', () => {
       expect(p).toContain(demoCertificate.certificateNumber);
       expect(p).toContain(`Page ${i + 1} of ${n}`);
     });
-  });
+    // A cold worker compiles the module graph with tsx first: generous limit for loaded machines.
+  }, 180_000);
 
   it('when a task name is unknown, then it is refused with a message', async () => {
     await expect(pool.runTask('no-such-task' as never, {})).rejects.toThrow(/Unknown worker task/);
