@@ -181,8 +181,8 @@ return { all, measurand, kernel };`;
     const symbolJs = (name: string): string => {
       const i = inputIndex.get(name);
       if (i !== undefined) return `a${i}`;
-      const p = placeholders.findIndex((q) => q.name === name);
-      if (p >= 0) return `p${p}`;
+      const m = /^__(bp|bq|ba)(\d+)(?:_(\d))?$/.exec(name);
+      if (m) return m[1] === 'bp' ? `p${m[2]}` : `${m[1] === 'bq' ? 'q' : 'A'}${m[2]}_${m[3]}`;
       throw new Error(`unresolved ${name}`);
     };
     inputSymbols.forEach((s, i) => {
@@ -199,7 +199,13 @@ return { all, measurand, kernel };`;
         // mathjs has no rule for this function (min, max, abs at 0 …): central differences.
       }
     });
-    const ph = placeholders.map((p, k) => `const p${k} = F_band_radiance(${p.args.map((a) => generate(a, symbolJs)).join(', ')});`).join('\n  ');
+    const ph = placeholders
+      .map((p, k) => {
+        const [a0, a1, a2] = p.args.map((a) => generate(a, symbolJs));
+        return `const A${k}_0 = ${a0}; const A${k}_1 = ${a1}; const A${k}_2 = ${a2};
+  const p${k} = F_band_radiance(A${k}_0, A${k}_1, A${k}_2); const q${k}_0 = F_planck(A${k}_0, A${k}_2); const q${k}_1 = F_planck(A${k}_1, A${k}_2);`;
+      })
+      .join('\n  ');
     const reads = inputSymbols.map((_, i) => `const a${i} = x[${i}];`).join(' ');
     gradientSource = `"use strict";
 ${bindFunctions()}

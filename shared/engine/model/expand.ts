@@ -2,8 +2,7 @@
  * Preparation of a model for symbolic differentiation: intermediates substituted, constants
  * inlined as numbers and radiometric functions expanded into their closed elementary forms
  * (DESIGN.md formulas; SI constants except its90_ratio, which uses the ITS-90 c2). Band
- * radiance has no elementary closed form; each call becomes a placeholder symbol whose
- * inputs are differentiated numerically (see ./compile.ts).
+ * radiance has no elementary closed form in T; see the band_radiance branch below.
  */
 import { parse, ConstantNode, SymbolNode, ParenthesisNode, type MathNode } from './math';
 import type { RadiometricLibrary } from './library-types';
@@ -27,6 +26,8 @@ const TEMPLATES: Readonly<Record<string, string>> = {
   // ITS-90: L(T)/L(TX) = (exp(c2/(λ TX)) − 1) / (exp(c2/(λ T)) − 1), c2 = 0.014388 m K
   its90_ratio: '(exp(c2_its90 / (a0 * a2)) - 1) / (exp(c2_its90 / (a0 * a1)) - 1)',
 };
+
+const BAND_TEMPLATE = parse('__bp + (__bq1 * __x1 - __bq0 * __x0) - (__bq1 * __ba1 - __bq0 * __ba0)');
 
 const parsedTemplates = new Map<string, MathNode>();
 function template(name: string): MathNode {
@@ -56,7 +57,7 @@ export interface Placeholder {
   name: string;
   /** Argument trees (already prepared; may refer to earlier placeholders). */
   args: MathNode[];
-  /** Input symbols the arguments depend on (transitively). */
+  /** Input symbols the temperature argument depends on (transitively): differentiated numerically. */
   inputs: Set<string>;
 }
 
@@ -88,10 +89,26 @@ export function prepareForDerivative(
       const name = (n.fn as AnyNode).name as string;
       const args = n.args as MathNode[];
       if (name === 'band_radiance') {
-        const ph: Placeholder = { name: `__band${placeholders.length}`, args, inputs: new Set() };
-        for (const a of args) for (const s of inputsOf(a)) ph.inputs.add(s);
+        // B(λ1, λ2, T) = ∫ L_λ dλ from λ1 to λ2, so ∂B/∂λ1 = −L(λ1, T) and ∂B/∂λ2 = L(λ2, T)
+        // (fundamental theorem of calculus). B is replaced by a tree whose value is B and whose
+        // derivative in λ1, λ2 is exact: p + (q1·λ2 − q0·λ1) − (q1·A1 − q0·A0), where p = B,
+        // q0 = L(A0, T), q1 = L(A1, T) and A0, A1 are the argument values, all computed at run
+        // time and constant for differentiation. ∂B/∂T has no elementary form: inputs reaching
+        // the T argument are differentiated by central differences of the whole model.
+        const k = placeholders.length;
+        const ph: Placeholder = { name: `__bp${k}`, args, inputs: inputsOf(args[2]) };
         placeholders.push(ph);
-        return new SymbolNode(ph.name);
+        return new ParenthesisNode(
+          rewrite(BAND_TEMPLATE, (t) => {
+            if (t.type !== 'SymbolNode') return t;
+            const s = t.name as string;
+            if (s === '__bp') return new SymbolNode(`__bp${k}`);
+            const m = /^__(bq|ba|x)(\d)$/.exec(s);
+            if (!m) return t;
+            if (m[1] === 'x') return new ParenthesisNode(args[Number(m[2])].cloneDeep());
+            return new SymbolNode(`__${m[1]}${k}_${m[2]}`);
+          }),
+        );
       }
       if (Object.prototype.hasOwnProperty.call(TEMPLATES, name)) {
         const consts: Record<string, number> = { ...library.constants, WIEN_B: library.functions.wien_peak(1) };

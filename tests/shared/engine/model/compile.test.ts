@@ -108,16 +108,30 @@ describe('compileModel', () => {
     }
   });
 
-  it('uses central differences for inputs reached through band_radiance, symbolic for the others, and says so', () => {
+  it('band_radiance: exact derivatives in the band limits, central differences for the temperature, and says so', () => {
     const m = compileModelWith(doc(['y = k * band_radiance(l1, l2, T)'], ['l1', 'l2', 'T', 'k']), stubLibrary);
     const x = [8e-6, 14e-6, 300, 2];
     const { c, method } = m.sensitivities(x, [1e-8, 1e-8, 0.1, 0.01]);
-    expect(method).toEqual(['numeric', 'numeric', 'numeric', 'symbolic']);
+    expect(method).toEqual(['symbolic', 'symbolic', 'numeric', 'symbolic']);
+    const fT = (v: number) => m.scalar([x[0], x[1], v, x[3]]);
+    expect(Math.abs(c[2] / richardson(fT, 300, 0.1) - 1)).toBeLessThan(1e-6);
     // ∂B/∂λ1 = −L(λ1, T), ∂B/∂λ2 = L(λ2, T) (fundamental theorem of calculus).
     const planck = stubLibrary.functions.planck;
-    expect(c[0] / (-2 * planck(8e-6, 300)) - 1).toBeLessThan(1e-6);
-    expect(c[1] / (2 * planck(14e-6, 300)) - 1).toBeLessThan(1e-6);
+    expect(Math.abs(c[0] / (-2 * planck(8e-6, 300)) - 1)).toBeLessThan(1e-12);
+    expect(Math.abs(c[1] / (2 * planck(14e-6, 300)) - 1)).toBeLessThan(1e-12);
     expect(c[3]).toBeCloseTo(stubLibrary.functions.band_radiance(8e-6, 14e-6, 300), 6);
+  });
+
+  it('band_radiance nested in a larger model with the real library: symbolic limits agree with central differences', () => {
+    const m = compileModel(doc(['B = band_radiance(lc - w / 2, lc + w / 2, T)', 'y = eps * B / (w * planck(lc, T))'], ['lc', 'w', 'T', 'eps']));
+    const x = [10e-6, 4e-6, 350, 0.97];
+    const u = [2e-8, 2e-8, 0.1, 0.001];
+    const { c, method } = m.sensitivities(x, u);
+    expect(method).toEqual(['symbolic', 'symbolic', 'numeric', 'symbolic']);
+    x.forEach((xi, i) => {
+      const ref = richardson((v) => m.scalar(x.map((q, j) => (j === i ? v : q))), xi, u[i] * 10);
+      expect(Math.abs(c[i] - ref)).toBeLessThanOrEqual(1e-6 * Math.abs(ref) + 1e-9);
+    });
   });
 
   it('gives exact zero sensitivities for inputs the measurand does not use', () => {
