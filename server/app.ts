@@ -62,8 +62,10 @@ function serveClient(app: express.Express, clientDir: string | undefined) {
   const index = clientDir ? path.join(clientDir, 'index.html') : null;
   if (clientDir && index && fs.existsSync(index)) {
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    // SPA fallback after the API: every other GET gets the client, which routes itself.
-    app.get('/{*any}', (_req, res) => {
+    // SPA fallback after the API: every other GET of a page gets the client, which routes
+    // itself. A missing file (a path with an extension) is a plain 404, not index.html.
+    app.get('/{*any}', (req, res) => {
+      if (path.extname(req.path)) return res.status(404).type('text/plain').send('Not found\n');
       res.setHeader('Cache-Control', 'no-cache');
       res.sendFile(index);
     });

@@ -8,8 +8,12 @@ export type Logger = {
 const format = (level: string, message: string, data?: Record<string, unknown>) =>
   `${new Date().toISOString()} ${level} ${message}${data ? ' ' + JSON.stringify(data, errorReplacer) : ''}`;
 
+// Errors do not serialise by themselves; keep the cause (drizzle wraps the driver's error there).
 function errorReplacer(_key: string, value: unknown) {
-  return value instanceof Error ? { name: value.name, message: value.message, stack: value.stack } : value;
+  if (!(value instanceof Error)) return value;
+  const cause = (value as { cause?: unknown }).cause;
+  const detail = (value as { detail?: unknown }).detail;
+  return { name: value.name, message: value.message, ...(detail ? { detail } : {}), ...(cause ? { cause } : {}), stack: value.stack };
 }
 
 export const consoleLogger: Logger = {

@@ -1,7 +1,10 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { labPublicSchema, labSettingsSchema } from '../../shared/schemas/lab.schema';
 import { DEMO_LAB } from '../../server/db/seed';
+import { createApp } from '../../server/app';
 import { createTestApp, type TestApp } from '../setup/test-app';
 
 describe('/api/lab', () => {
@@ -74,5 +77,27 @@ describe('/api/health and unknown routes', () => {
   it('when the client is not built, then / answers a short placeholder', async () => {
     const res = await request(t.app).get('/some/client/route').expect(200);
     expect(res.text).toMatch(/client has not been built/);
+  });
+});
+
+describe('serving the built client', () => {
+  let t: TestApp;
+  let clientDir: string;
+  beforeAll(async () => {
+    t = await createTestApp({ seed: false });
+    clientDir = path.join(t.dataDir, 'client');
+    fs.mkdirSync(path.join(clientDir, 'assets'), { recursive: true });
+    fs.writeFileSync(path.join(clientDir, 'index.html'), '<!doctype html><div id="root"></div>');
+    fs.writeFileSync(path.join(clientDir, 'assets', 'app.js'), 'console.log(1)');
+  });
+  afterAll(() => t?.close());
+
+  it('when a client route is asked, then index.html; an asset is served; a missing file is 404; /api stays JSON', async () => {
+    const app = createApp(t.deps, { clientDir });
+    expect((await request(app).get('/jobs/42').expect(200)).text).toContain('id="root"');
+    expect((await request(app).get('/assets/app.js').expect(200)).text).toContain('console.log');
+    await request(app).get('/assets/missing.js').expect(404);
+    const api = await request(app).get('/api/missing').expect(404);
+    expect(api.body.error.code).toBe('NOT_FOUND');
   });
 });

@@ -19,7 +19,7 @@ describe('the same DATA_DIR across restarts', () => {
   afterAll(() => fs.rmSync(dataDir, { recursive: true, force: true }));
 
   it('when the app is stopped and started again, then saved data, users and sessions are still there and the seed does not repeat', async () => {
-    const first = await createTestApp({ dataDir });
+    const first = await createTestApp({ dataDir, keepDatabase: true });
     const admin = await first.signIn('admin');
     await admin.put('/api/lab').send({ name: 'Kept Lab (demo)', address: 'Somewhere 1', accreditationNumber: 'DEMO-1', contactEmail: '', contactPhone: '' }).expect(200);
     await admin.post('/api/users').send({ name: 'Kept User', email: 'kept@example.org', role: 'signatory', password: 'a-good-long-password' }).expect(201);

@@ -59,13 +59,18 @@ export type TestAppOptions = {
   clock?: () => Date;
   /** Reuse a data folder (e.g. to test a restart); it is then not deleted by close(). */
   dataDir?: string;
+  /**
+   * With DATABASE_URL: keep the scratch database on close() so that the next createTestApp with the
+   * same `dataDir` reopens it (its URL is kept in `<dataDir>/test-database-url`).
+   */
+  keepDatabase?: boolean;
 };
 
 export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
   const ownDataDir = !opts.dataDir;
   const dataDir = opts.dataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-test-'));
   const serverUrl = process.env.DATABASE_URL;
-  const scratch = serverUrl ? await createScratchDatabase(serverUrl) : null;
+  const scratch = serverUrl ? await scratchDatabaseFor(serverUrl, opts.dataDir) : null;
 
   const config = loadConfig({ NODE_ENV: 'test', DATA_DIR: dataDir, PUBLIC_URL: 'http://localhost:3000', SEED_DEMO: 'true', ...opts.env, ...(scratch ? { DATABASE_URL: scratch.url } : {}) });
   const logs: LogEntry[] = [];
@@ -112,27 +117,39 @@ export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp>
       mailer.close();
       await smtp.stop();
       await database.close();
-      if (scratch) await scratch.drop();
+      if (scratch && !opts.keepDatabase) await scratch.drop();
       if (ownDataDir) fs.rmSync(dataDir, { recursive: true, force: true });
     },
   };
 }
 
-/** CREATE DATABASE with a random name on the server of `url`; `drop()` removes it. */
-async function createScratchDatabase(url: string): Promise<{ url: string; drop(): Promise<void> }> {
-  const name = `emberline_test_${crypto.randomBytes(6).toString('hex')}`;
-  const admin = new pg.Client({ connectionString: url });
-  await admin.connect();
-  try {
-    await admin.query(`CREATE DATABASE ${name}`);
-  } finally {
-    await admin.end();
+/**
+ * CREATE DATABASE with a random name on the server of `url`; `drop()` removes it. With a given
+ * data folder that already names one (a restart test), that database is reused.
+ */
+async function scratchDatabaseFor(url: string, dataDir?: string): Promise<{ url: string; drop(): Promise<void> }> {
+  const marker = dataDir ? path.join(dataDir, 'test-database-url') : null;
+  let scratchUrl: URL;
+  if (marker && fs.existsSync(marker)) {
+    scratchUrl = new URL(fs.readFileSync(marker, 'utf8').trim());
+  } else {
+    const fresh = `emberline_test_${crypto.randomBytes(6).toString('hex')}`;
+    const admin = new pg.Client({ connectionString: url });
+    await admin.connect();
+    try {
+      await admin.query(`CREATE DATABASE ${fresh}`);
+    } finally {
+      await admin.end();
+    }
+    scratchUrl = new URL(url);
+    scratchUrl.pathname = `/${fresh}`;
+    if (marker) fs.writeFileSync(marker, scratchUrl.toString());
   }
-  const scratchUrl = new URL(url);
-  scratchUrl.pathname = `/${name}`;
+  const name = scratchUrl.pathname.slice(1);
   return {
     url: scratchUrl.toString(),
     async drop() {
+      if (marker) fs.rmSync(marker, { force: true });
       const c = new pg.Client({ connectionString: url });
       await c.connect();
       try {
