@@ -29,7 +29,10 @@ export function createAppDeps(opts: {
   logger: Logger;
   clock?: () => Date;
 }): AppDeps {
-  const clock = opts.clock ?? (() => new Date());
+  const offsetMs = opts.config.clockOffsetDays * 86_400_000;
+  // EMBERLINE_CLOCK_OFFSET_DAYS (browser tests): the whole server sees a moved "now".
+  const clock = opts.clock ?? (offsetMs ? () => new Date(Date.now() + offsetMs) : () => new Date());
+  if (offsetMs && !opts.clock) opts.logger.warn('EMBERLINE_CLOCK_OFFSET_DAYS is set: the clock is moved (for tests only)', { days: opts.config.clockOffsetDays });
   const auth = createAuth({
     config: opts.config,
     db: opts.database.db,

@@ -69,6 +69,15 @@ const envSchema = z.object({
   FAKE_SMTP_PORT: port('FAKE_SMTP_PORT', 2525),
   SIGNUP_ENABLED: bool('SIGNUP_ENABLED', false),
   SEED_DEMO: bool('SEED_DEMO', true),
+  EMBERLINE_CLOCK_OFFSET_DAYS: optionalText.transform((v, ctx) => {
+    if (v === undefined) return 0;
+    const n = Number(v);
+    if (!Number.isFinite(n) || Math.abs(n) > 36500) {
+      ctx.addIssue({ code: 'custom', message: `EMBERLINE_CLOCK_OFFSET_DAYS must be a number of days, got "${v}"` });
+      return z.NEVER;
+    }
+    return n;
+  }),
 });
 
 export type SmtpConfig = {
@@ -97,6 +106,8 @@ export type Config = {
   fakeSmtpPort: number;
   signupEnabled: boolean;
   seedDemo: boolean;
+  /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
+  clockOffsetDays: number;
 };
 
 export class ConfigError extends Error {
@@ -146,5 +157,6 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     fakeSmtpPort: e.FAKE_SMTP_PORT,
     signupEnabled: e.SIGNUP_ENABLED,
     seedDemo: e.SEED_DEMO,
+    clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,
   };
 }

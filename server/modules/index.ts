@@ -12,6 +12,13 @@ import { templatesRoutes } from './templates/templates.routes';
 import { createUsersRepository } from './users/users.repository';
 import { usersRoutes } from './users/users.routes';
 import { createUsersService } from './users/users.service';
+import { createFileStore } from '../files/file-store';
+import { createStandardsRepository } from './standards/standards.repository';
+import { standardsRoutes } from './standards/standards.routes';
+import { createStandardsService } from './standards/standards.service';
+import { createItemsRepository } from './items/items.repository';
+import { itemsRoutes } from './items/items.routes';
+import { createCustomersService } from './customers/customers.service';
 
 /**
  * Wires repositories → services → routes and mounts each module under /api.
@@ -30,6 +37,10 @@ export function registerModules(router: Router, deps: AppDeps): void {
   router.use('/lab', labRoutes(lab));
   router.use('/me', meRoutes(lab));
   router.use('/users', usersRoutes(users));
-  router.use('/customers', customersRoutes(customersRepo));
+  const customersService = createCustomersService({ db, customersRepo, itemsRepo: createItemsRepository(db), clock: deps.clock });
+  router.use('/customers', customersRoutes(customersService));
+  router.use('/items', itemsRoutes(customersService));
+  const files = createFileStore(deps.config.dataDir);
+  router.use('/standards', standardsRoutes(createStandardsService({ db, standardsRepo: createStandardsRepository(db), files, clock: deps.clock })));
   router.use('/templates', templatesRoutes(createTemplatesService({ db, clock: deps.clock })));
 }

@@ -8,6 +8,8 @@ import { createCustomersRepository } from '../../modules/customers/customers.rep
 import { createUsersRepository } from '../../modules/users/users.repository';
 import { createUsersService } from '../../modules/users/users.service';
 import { shippedTemplatesSeedStep } from '../../modules/templates/shipped-templates';
+import { standardsSeedStep } from '../../modules/standards/standards.seed';
+import { itemsSeedStep } from '../../modules/items/items.seed';
 import { DEMO_CUSTOMERS, DEMO_LAB, DEMO_PASSWORD, DEMO_USERS } from './demo-data';
 
 /** What a seed step gets: `db` is the transaction the step runs in. */
@@ -54,7 +56,7 @@ const usersStep: SeedStep = {
 };
 
 /** The demo scenario in order. Later features append their steps here (templates, jobs, …). */
-export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, shippedTemplatesSeedStep];
+export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, standardsSeedStep, itemsSeedStep, shippedTemplatesSeedStep];
 
 /** Runs every step not yet recorded in `seed_runs`. Returns the names of the steps that ran. */
 export async function runSeed(
