@@ -186,7 +186,15 @@ function condition(c: { value: number; U: number; unit: string }): string {
 function FirstPart({ data }: { data: CertificateData }) {
   const { lab, customer, item, dates, method, environment: env } = data;
   const anyOutside = data.results.some((r) => r.outsideAccreditation);
-  const mcmPoints = data.results.map((r, i) => ({ r, i })).filter(({ r }) => r.reportedFrom === 'mcm' || r.monteCarloNote);
+  // Points sharing one note get one footnote ("‡ Points 3, 6: …").
+  const mcmNotes: Array<{ note: string; points: number[] }> = [];
+  data.results.forEach((r, i) => {
+    if (r.reportedFrom !== 'mcm' && !r.monteCarloNote) return;
+    const note = r.monteCarloNote ?? 'the Monte Carlo result (JCGM 101:2008) is reported.';
+    const entry = mcmNotes.find((n) => n.note === note);
+    if (entry) entry.points.push(i + 1);
+    else mcmNotes.push({ note, points: [i + 1] });
+  });
   const conformityAsked = Boolean(data.conformity);
 
   return (
@@ -243,9 +251,7 @@ function FirstPart({ data }: { data: CertificateData }) {
         {`Ambient temperature ${condition(env.temperature)}; relative humidity ${condition(env.humidity)}${env.note ? `. ${env.note}` : ''}`}
       </KV>
 
-      <View break={data.results.length > 6}>
-        <Text style={s.h2}>Results</Text>
-      </View>
+      <Text style={s.h2} minPresenceAhead={60}>Results</Text>
       <Table
         columns={[
           { title: 'No.', width: 24, cell: (_r, i) => String(i + 1) },
@@ -274,8 +280,8 @@ function FirstPart({ data }: { data: CertificateData }) {
         against the Monte Carlo method of JCGM 101:2008; budgets, distributions and the checks are given in Annex A.
       </Text>
       {anyOutside ? <Text style={s.note}>† Outside the laboratory's scope of accreditation.</Text> : null}
-      {mcmPoints.map(({ r, i }) => (
-        <Text key={i} style={s.note}>‡ Point {i + 1}: {r.monteCarloNote ?? 'the Monte Carlo result (JCGM 101:2008) is reported.'}</Text>
+      {mcmNotes.map(({ note, points }) => (
+        <Text key={note} style={s.note}>{`‡ ${points.length > 1 ? 'Points' : 'Point'} ${points.join(', ')}: ${note}`}</Text>
       ))}
 
       {data.conformity ? (
