@@ -77,19 +77,19 @@ export class OutputAccumulator {
     this.m2 += m2c + (delta * delta * this.count * n) / total;
 
     if (this.kept) {
-      if (this.count + n <= EXACT_CAPACITY) {
-        if (this.kept.length < this.count + n) {
-          const grown = new Float64Array(Math.min(EXACT_CAPACITY, Math.max(2 * this.kept.length, this.count + n)));
-          grown.set(this.kept.subarray(0, this.count));
-          this.kept = grown;
-        }
-        this.kept.set(x.subarray(0, n), this.count);
-        this.count = total;
-        return;
+      // Keep values up to the capacity; the chunk that crosses it is split.
+      const take = Math.min(n, EXACT_CAPACITY - this.count);
+      if (this.kept.length < this.count + take) {
+        const grown = new Float64Array(Math.min(EXACT_CAPACITY, Math.max(2 * this.kept.length, this.count + take)));
+        grown.set(this.kept.subarray(0, this.count));
+        this.kept = grown;
       }
+      this.kept.set(x.subarray(0, take), this.count);
+      this.count += take;
+      if (take === n) return;
       this.startHistogram();
-    }
-    this.bin(x, n);
+      this.bin(x.subarray(take), n - take);
+    } else this.bin(x, n);
     this.count = total;
   }
 

@@ -211,6 +211,12 @@ describe('bounded memory beyond 2^20 trials (OutputAccumulator)', () => {
       expect(s.u).toBeCloseTo(Math.sqrt(ss / (n - 1)), 10);
       expect(s.histogram.counts.reduce((a, b) => a + b, 0)).toBeGreaterThan(0.95 * n);
     }
+    // One chunk larger than the capacity is split at it: same result as chunk by chunk.
+    const one = new OutputAccumulator(n, 0.9545);
+    one.add(Float64Array.from(all), n);
+    const chunked = new OutputAccumulator(n, 0.9545);
+    for (let done = 0; done < n; done += 65536) chunked.add(all.subarray(done, Math.min(n, done + 65536)), Math.min(65536, n - done));
+    expect(one.summary('symmetric').interval).toEqual(chunked.summary('symmetric').interval);
   });
 });
 
