@@ -11,7 +11,8 @@ function createClientAndRouter() {
     // A session that ends while a page is open sends the person to sign in, then back here.
     onUnauthorized: () => {
       const router = holder.router;
-      if (!router) return;
+      // While a navigation is loading, its loaders answer a 401 themselves (redirect to sign-in).
+      if (!router || router.state.navigation.state !== 'idle') return;
       const { pathname, search } = router.state.location;
       if (!pathname.startsWith('/app')) return;
       queryClient.removeQueries({ queryKey: sessionKeys.all });

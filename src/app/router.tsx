@@ -5,7 +5,7 @@
 import type { QueryClient } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs, type RouteObject } from 'react-router';
-import { meQueryOptions } from '../features/session/api/get-me';
+import { getMe, meQueryOptions } from '../features/session/api/get-me';
 import { ApiError } from '../lib/api-client';
 import { homePathFor, SECTIONS, type SectionId } from './navigation';
 import { AppLayout } from './routes/app-layout';
@@ -51,7 +51,9 @@ export function requireSession(queryClient: QueryClient) {
 /** /sign-in while already signed in goes straight to the role's start page. */
 function redirectIfSignedIn(queryClient: QueryClient) {
   return async () => {
-    const me = queryClient.getQueryData(meQueryOptions().queryKey);
+    // Asked directly, not through the query cache: a 401 here is the expected answer, not an
+    // ended session (the cache's 401 hook would send the visitor round in a circle).
+    const me = queryClient.getQueryData(meQueryOptions().queryKey) ?? (await getMe().catch(() => null));
     if (me?.user.role) throw redirect(homePathFor(me.user.role));
     return null;
   };

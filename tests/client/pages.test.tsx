@@ -52,3 +52,21 @@ describe('error boundary', () => {
     expect(screen.getByRole('button', { name: 'Reload the page' })).toBeTruthy();
   });
 });
+
+describe('page titles', () => {
+  it('each page names itself in the document title', async () => {
+    mockFetch({ 'GET /api/me': () => json(200, meFor('signatory')) });
+    renderApp('/app/certificates');
+    await screen.findByRole('heading', { level: 1, name: 'Issued certificates' });
+    expect(document.title).toBe('Issued certificates · Emberline');
+  });
+});
+
+describe('sign-in page when already signed in', () => {
+  it('goes straight to the role’s start page', async () => {
+    mockFetch({ 'GET /api/me': () => json(200, meFor('customer')) });
+    const { router } = renderApp('/sign-in');
+    expect(await screen.findByRole('heading', { level: 1, name: 'My certificates' })).toBeTruthy();
+    expect(router.state.location.pathname).toBe('/app/my-certificates');
+  });
+});

@@ -68,7 +68,7 @@ export function AppLayout() {
             </ul>
           </nav>
         )}
-        <main id="main" className="min-w-0 flex-1 px-6 py-8 md:px-10">
+        <main id="main" tabIndex={-1} className="focus:outline-none min-w-0 flex-1 px-6 py-8 md:px-10">
           <Outlet />
         </main>
       </div>

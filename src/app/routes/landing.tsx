@@ -28,6 +28,7 @@ const STEPS = [
 export function LandingPage() {
   return (
     <>
+      <title>Emberline: uncertainty and calibration certificates for radiometry laboratories</title>
       <section className="border-b border-line bg-surface">
         <div className="mx-auto max-w-5xl px-6 py-14">
           <p className="text-sm font-semibold uppercase tracking-wider text-ember-strong">For radiometry and radiation-thermometry laboratories</p>

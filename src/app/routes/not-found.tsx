@@ -5,6 +5,7 @@ export function NotFoundPage({ home = '/' }: { home?: string }) {
   const location = useLocation();
   return (
     <div className="max-w-prose">
+      <title>Page not found · Emberline</title>
       <p className="text-sm font-semibold text-ink-muted">Error 404</p>
       <h1 className="mt-1 text-2xl font-semibold">Page not found</h1>
       <p className="mt-2 text-ink-muted">
@@ -20,7 +21,7 @@ export function NotFoundPage({ home = '/' }: { home?: string }) {
 
 export function StandaloneNotFound() {
   return (
-    <main id="main" className="mx-auto max-w-5xl px-6 py-16">
+    <main id="main" tabIndex={-1} className="focus:outline-none mx-auto max-w-5xl px-6 py-16">
       <NotFoundPage />
     </main>
   );

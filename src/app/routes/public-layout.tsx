@@ -27,7 +27,7 @@ export function PublicLayout() {
           </nav>
         </div>
       </header>
-      <main id="main" className="flex-1">
+      <main id="main" tabIndex={-1} className="focus:outline-none flex-1">
         <Outlet />
       </main>
       <footer className="border-t border-line bg-surface">

@@ -28,11 +28,12 @@ export function RouteErrorPage() {
           <Logo />
         </Link>
       </header>
-      <main id="main" className="mx-auto max-w-3xl px-6 py-16">
+      <main id="main" tabIndex={-1} className="focus:outline-none mx-auto max-w-3xl px-6 py-16">
         {is404 ? (
           <NotFoundPage />
         ) : (
           <div role="alert" className="max-w-prose">
+            <title>Error · Emberline</title>
             <h1 className="text-2xl font-semibold">{title}</h1>
             <p className="mt-2 text-ink-muted">{detail}</p>
             <p className="mt-2 text-ink-muted">Reload the page to try again; if it keeps happening, tell your administrator what you were doing.</p>

@@ -12,6 +12,7 @@ export function SectionPage({ id }: { id: SectionId }) {
   if (!user.role || !canOpen(section, user.role)) return <ForbiddenPage what={section.label} />;
   return (
     <>
+      <title>{`${section.label} · Emberline`}</title>
       <PageHeader title={section.label} viewOnly={isViewOnly(section, user.role)}>
         {PLACEHOLDERS[id].intro}
       </PageHeader>

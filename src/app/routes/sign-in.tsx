@@ -22,6 +22,7 @@ export function SignInPage() {
 
   return (
     <div className="mx-auto flex max-w-md flex-col px-6 py-14">
+      <title>Sign in · Emberline</title>
       <div className="rounded-card border border-line bg-surface p-8 shadow-card">
         <h1 id="sign-in-heading" className="text-2xl font-semibold">
           Sign in

@@ -4,6 +4,7 @@ import { Notice } from '../../components/ui/notice';
 export function VerifyPage() {
   return (
     <div className="mx-auto max-w-5xl px-6 py-12">
+      <title>Check a certificate · Emberline</title>
       <h1 className="text-2xl font-semibold">Check a calibration certificate</h1>
       <p className="mt-3 max-w-prose text-ink-muted">
         A certificate issued through Emberline carries a certificate number and a fingerprint (SHA-256) of the
