@@ -31,7 +31,7 @@ CREATE TABLE "jobs" (
 	"review_comment" text,
 	"rejected_at" timestamp with time zone,
 	"submitted_at" timestamp with time zone,
-	"analyst_id" text NOT NULL,
+	"analyst_id" uuid NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
 	CONSTRAINT "jobs_status_check" CHECK ("jobs"."status" in ('draft', 'submitted', 'approved', 'issued'))
@@ -45,7 +45,7 @@ CREATE TABLE "readings" (
 	"file_name" text,
 	"sha256" text,
 	"column" text,
-	"uploaded_by" text NOT NULL,
+	"uploaded_by" uuid NOT NULL,
 	"uploaded_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint

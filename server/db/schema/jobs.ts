@@ -29,6 +29,8 @@ export const jobs = pgTable(
       .notNull()
       .references(() => customers.id, { onDelete: 'restrict' }),
     itemId: uuid('item_id').notNull(),
+    /** The item as it was described when the job was opened (for lists and text search). */
+    itemLabel: text('item_label').notNull().default(''),
     templateVersionId: uuid('template_version_id').notNull(),
     receivedOn: date('received_on', { mode: 'string' }),
     calibratedOn: date('calibrated_on', { mode: 'string' }),
@@ -39,7 +41,7 @@ export const jobs = pgTable(
     reviewComment: text('review_comment'),
     rejectedAt: timestamp('rejected_at', { withTimezone: true }),
     submittedAt: timestamp('submitted_at', { withTimezone: true }),
-    analystId: text('analyst_id')
+    analystId: uuid('analyst_id')
       .notNull()
       .references(() => user.id, { onDelete: 'restrict' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -98,7 +100,7 @@ export const readings = pgTable(
     fileName: text('file_name'),
     sha256: text('sha256'),
     column: text('column'),
-    uploadedBy: text('uploaded_by')
+    uploadedBy: uuid('uploaded_by')
       .notNull()
       .references(() => user.id, { onDelete: 'restrict' }),
     uploadedAt: timestamp('uploaded_at', { withTimezone: true }).notNull().defaultNow(),

@@ -1,0 +1,1 @@
+ALTER TABLE "jobs" ADD COLUMN "item_label" text DEFAULT '' NOT NULL;
