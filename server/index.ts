@@ -26,7 +26,9 @@ async function main() {
   const database = await openDatabase({ dataDir: config.dataDir, databaseUrl: config.databaseUrl });
   let fakeSmtp: FakeSmtp | null = null;
   if (!config.smtp) {
-    fakeSmtp = await startFakeSmtp({ port: config.fakeSmtpPort, mailboxDir: path.join(config.dataDir, 'mailbox') });
+    fakeSmtp = await startFakeSmtp({ port: config.fakeSmtpPort, mailboxDir: path.join(config.dataDir, 'mailbox') }).catch((err) =>
+      failOnBusyPort(err, config.fakeSmtpPort, 'FAKE_SMTP_PORT'),
+    );
   }
   const mailer = createMailer({ from: config.mailFrom, smtp: config.smtp, fakePort: fakeSmtp?.port });
   const deps = createAppDeps({ config, database, mailer, logger });
@@ -37,7 +39,7 @@ async function main() {
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
     server.once('error', reject);
-  });
+  }).catch((err) => failOnBusyPort(err, config.port, 'PORT'));
   deps.outbox.start();
 
   const port = (server.address() as AddressInfo).port;
@@ -70,6 +72,14 @@ async function main() {
   };
   process.on('SIGINT', () => void shutdown('SIGINT'));
   process.on('SIGTERM', () => void shutdown('SIGTERM'));
+}
+
+function failOnBusyPort(err: unknown, port: number, variable: string): never {
+  if ((err as NodeJS.ErrnoException).code === 'EADDRINUSE') {
+    console.error(`Port ${port} is already in use (another Emberline running?). Stop it, or set ${variable} to a free port.`);
+    process.exit(1);
+  }
+  throw err;
 }
 
 main().catch((err) => {
