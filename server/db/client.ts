@@ -83,7 +83,13 @@ export async function openDatabase(options: OpenDatabaseOptions): Promise<Databa
   // PGlite fails with ENOENT when the parent folder is missing.
   const dir = path.join(options.dataDir, 'pglite');
   fs.mkdirSync(dir, { recursive: true });
-  const client = new PGlite(dir);
+  // Durability (DEVELOPERS.md "Durability"): relaxedDurability stays false, so a query resolves
+  // only after PGlite has handed its writes to the file system; synchronous_commit stays on (the
+  // PostgreSQL default), so a commit's WAL record is written before COMMIT returns. PGlite writes
+  // through Node's fs synchronously; a killed process loses no acknowledged commit
+  // (tests/server/security/crash-safety.test.ts). PGlite runs with fsync off, so an OS crash or
+  // power loss can: use DATABASE_URL (a PostgreSQL server with fsync on) where that matters.
+  const client = new PGlite({ dataDir: dir, relaxedDurability: false });
   const db = drizzlePglite({ client, schema });
   try {
     if (shouldMigrate) await migratePglite(db, { migrationsFolder });
