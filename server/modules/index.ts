@@ -19,6 +19,15 @@ import { createStandardsService } from './standards/standards.service';
 import { createItemsRepository } from './items/items.repository';
 import { itemsRoutes } from './items/items.routes';
 import { createCustomersService } from './customers/customers.service';
+import { calculationsRoutes, runsRoutes } from './calculations/calculations.routes';
+import { createRunRegistry } from './calculations/runs';
+import { createJobsRepository } from './jobs/jobs.repository';
+import { jobsRoutes } from './jobs/jobs.routes';
+import { createJobsService } from './jobs/jobs.service';
+import { createJobSources } from './jobs/sources';
+import { createPointsService } from './points/points.service';
+import { pointsRoutes } from './points/points.routes';
+import { sharedMcmPool } from './calculations/mcm-pool';
 
 /**
  * Wires repositories → services → routes and mounts each module under /api.
@@ -43,4 +52,14 @@ export function registerModules(router: Router, deps: AppDeps): void {
   const files = createFileStore(deps.config.dataDir);
   router.use('/standards', standardsRoutes(createStandardsService({ db, standardsRepo: createStandardsRepository(db), files, clock: deps.clock })));
   router.use('/templates', templatesRoutes(createTemplatesService({ db, clock: deps.clock })));
+
+  const jobsRepo = createJobsRepository(db);
+  const jobSources = createJobSources(db, deps.clock);
+  const jobs = createJobsService({ db, jobsRepo, sources: jobSources, clock: deps.clock });
+  const points = createPointsService({ db, jobsRepo, sources: jobSources, clock: deps.clock });
+  const runs = createRunRegistry({ pool: () => sharedMcmPool(deps), logger: deps.logger });
+  router.use('/jobs', jobsRoutes(jobs, points, jobSources));
+  router.use('/points', pointsRoutes(points, jobs, runs));
+  router.use('/calculations', calculationsRoutes());
+  router.use('/runs', runsRoutes(runs));
 }

@@ -1,0 +1,134 @@
+import { and, asc, count, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { calibrationPoints, customers, jobs, readings, user } from '../../db/schema';
+import type { JobListQuery, JobStatus } from '../../../shared/schemas/jobs.schema';
+
+export type JobRow = typeof jobs.$inferSelect;
+export type PointRow = typeof calibrationPoints.$inferSelect;
+export type ReadingRow = typeof readings.$inferSelect;
+
+export type JobListRow = Pick<JobRow, 'id' | 'number' | 'status' | 'itemLabel' | 'calibratedOn' | 'receivedOn' | 'updatedAt' | 'customerId' | 'templateVersionId'> & {
+  customer: string;
+  analyst: string;
+  points: number;
+};
+
+/** Drizzle queries of jobs, their points and readings. No HTTP, no rules. */
+export function createJobsRepository(db: Db) {
+  return {
+    async nextNumber(tx: Db, year: number): Promise<string> {
+      const res = await tx.execute(sql`select nextval('job_number_seq') as n`);
+      const n = Number((res as unknown as { rows: Array<{ n: string | number }> }).rows[0].n);
+      return `EMB-${year}-${String(n).padStart(4, '0')}`;
+    },
+
+    async list(q: JobListQuery, analystId?: string): Promise<{ rows: JobListRow[]; total: number }> {
+      const where: SQL[] = [];
+      if (q.status) where.push(eq(jobs.status, q.status));
+      if (q.customerId) where.push(eq(jobs.customerId, q.customerId));
+      if (analystId) where.push(eq(jobs.analystId, analystId));
+      if (q.q && q.q.trim()) {
+        const like = `%${q.q.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+        where.push(or(ilike(jobs.number, like), ilike(jobs.itemLabel, like), ilike(customers.organisation, like))!);
+      }
+      const cond = where.length ? and(...where) : undefined;
+      const pointsCount = db.$count(calibrationPoints, eq(calibrationPoints.jobId, jobs.id));
+      const rows = await db
+        .select({
+          id: jobs.id, number: jobs.number, status: jobs.status, itemLabel: jobs.itemLabel, calibratedOn: jobs.calibratedOn,
+          receivedOn: jobs.receivedOn, updatedAt: jobs.updatedAt, customerId: jobs.customerId, templateVersionId: jobs.templateVersionId,
+          customer: customers.organisation, analyst: user.name, points: pointsCount,
+        })
+        .from(jobs)
+        .innerJoin(customers, eq(customers.id, jobs.customerId))
+        .innerJoin(user, eq(user.id, jobs.analystId))
+        .where(cond)
+        .orderBy(desc(jobs.updatedAt), desc(jobs.number))
+        .limit(q.pageSize)
+        .offset((q.page - 1) * q.pageSize);
+      const [{ total }] = await db.select({ total: count() }).from(jobs).innerJoin(customers, eq(customers.id, jobs.customerId)).where(cond);
+      return { rows: rows.map((r) => ({ ...r, points: Number(r.points) })), total: Number(total) };
+    },
+
+    async get(id: string, tx: Db = db): Promise<(JobRow & { customer: string; analyst: string }) | null> {
+      const [row] = await tx
+        .select({ job: jobs, customer: customers.organisation, analyst: user.name })
+        .from(jobs)
+        .innerJoin(customers, eq(customers.id, jobs.customerId))
+        .innerJoin(user, eq(user.id, jobs.analystId))
+        .where(eq(jobs.id, id));
+      return row ? { ...row.job, customer: row.customer, analyst: row.analyst } : null;
+    },
+
+    async lockJob(tx: Db, id: string): Promise<JobRow | null> {
+      const [row] = await tx.select().from(jobs).where(eq(jobs.id, id)).for('update');
+      return row ?? null;
+    },
+
+    async insert(tx: Db, values: typeof jobs.$inferInsert): Promise<JobRow> {
+      const [row] = await tx.insert(jobs).values(values).returning();
+      return row;
+    },
+
+    async update(tx: Db, id: string, values: Partial<typeof jobs.$inferInsert>): Promise<JobRow> {
+      const [row] = await tx.update(jobs).set(values).where(eq(jobs.id, id)).returning();
+      return row;
+    },
+
+    async setStatus(tx: Db, id: string, from: JobStatus, values: Partial<typeof jobs.$inferInsert>): Promise<JobRow | null> {
+      const [row] = await tx.update(jobs).set(values).where(and(eq(jobs.id, id), eq(jobs.status, from))).returning();
+      return row ?? null;
+    },
+
+    async points(jobId: string, tx: Db = db): Promise<PointRow[]> {
+      return tx.select().from(calibrationPoints).where(eq(calibrationPoints.jobId, jobId)).orderBy(asc(calibrationPoints.position), asc(calibrationPoints.createdAt));
+    },
+
+    async point(id: string, tx: Db = db): Promise<PointRow | null> {
+      const [row] = await tx.select().from(calibrationPoints).where(eq(calibrationPoints.id, id));
+      return row ?? null;
+    },
+
+    async insertPoint(tx: Db, values: typeof calibrationPoints.$inferInsert): Promise<PointRow> {
+      const [row] = await tx.insert(calibrationPoints).values(values).returning();
+      return row;
+    },
+
+    async updatePoint(tx: Db, id: string, values: Partial<typeof calibrationPoints.$inferInsert>): Promise<PointRow> {
+      const [row] = await tx.update(calibrationPoints).set(values).where(eq(calibrationPoints.id, id)).returning();
+      return row;
+    },
+
+    async deletePoint(tx: Db, id: string): Promise<void> {
+      await tx.delete(calibrationPoints).where(eq(calibrationPoints.id, id));
+    },
+
+    async readings(pointId: string, tx: Db = db): Promise<ReadingRow[]> {
+      return tx.select().from(readings).where(eq(readings.pointId, pointId)).orderBy(asc(readings.symbol));
+    },
+
+    async readingsOfJob(jobId: string, tx: Db = db): Promise<ReadingRow[]> {
+      return tx
+        .select({ r: readings })
+        .from(readings)
+        .innerJoin(calibrationPoints, eq(calibrationPoints.id, readings.pointId))
+        .where(eq(calibrationPoints.jobId, jobId))
+        .then((rows) => rows.map((x) => x.r));
+    },
+
+    async upsertReadings(tx: Db, values: typeof readings.$inferInsert): Promise<ReadingRow> {
+      const [row] = await tx
+        .insert(readings)
+        .values(values)
+        .onConflictDoUpdate({ target: [readings.pointId, readings.symbol], set: { values: values.values, fileName: values.fileName, sha256: values.sha256, column: values.column, uploadedBy: values.uploadedBy, uploadedAt: values.uploadedAt } })
+        .returning();
+      return row;
+    },
+
+    async deleteReadings(tx: Db, pointId: string, symbol: string): Promise<void> {
+      await tx.delete(readings).where(and(eq(readings.pointId, pointId), eq(readings.symbol, symbol)));
+    },
+  };
+}
+
+export type JobsRepository = ReturnType<typeof createJobsRepository>;
