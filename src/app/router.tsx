@@ -16,6 +16,7 @@ import { PublicLayout } from './routes/public-layout';
 import { RouteErrorPage } from './routes/route-error';
 import { SectionPage } from './routes/section-page';
 import { SignInPage } from './routes/sign-in';
+import { TemplatesPage, TemplateVersionPage } from './routes/templates-page';
 import { VerifyPage } from './routes/verify';
 
 /** The page of each /app section. Replace an entry when its feature is built. */
@@ -24,7 +25,7 @@ const SECTION_PAGES: Record<SectionId, ReactNode> = {
   lab: <SectionPage id="lab" />,
   mail: <SectionPage id="mail" />,
   audit: <SectionPage id="audit" />,
-  templates: <SectionPage id="templates" />,
+  templates: <TemplatesPage />,
   standards: <SectionPage id="standards" />,
   customers: <SectionPage id="customers" />,
   jobs: <SectionPage id="jobs" />,
@@ -91,6 +92,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               element: <NoRolePage />,
             },
             ...Object.values(SECTIONS).map((section) => ({ path: section.path, element: SECTION_PAGES[section.id] })),
+            { path: 'templates/versions/:versionId', element: <TemplateVersionPage /> },
             { path: '*', element: <NotFoundPage home="/app" /> },
           ],
         },
