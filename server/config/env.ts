@@ -68,6 +68,8 @@ const envSchema = z.object({
   SMTP_FROM: optionalText.default('Emberline <no-reply@emberline-demo.test>'),
   FAKE_SMTP_PORT: port('FAKE_SMTP_PORT', 2525),
   SIGNUP_ENABLED: bool('SIGNUP_ENABLED', false),
+  SIGNING_P12_PATH: optionalText,
+  SIGNING_P12_PASSPHRASE: z.string().optional(),
   SEED_DEMO: bool('SEED_DEMO', true),
   EMBERLINE_CLOCK_OFFSET_DAYS: optionalText.transform((v, ctx) => {
     if (v === undefined) return 0;
@@ -108,6 +110,8 @@ export type Config = {
   seedDemo: boolean;
   /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
   clockOffsetDays: number;
+  /** The lab's own signing P12 (path, passphrase); unset: a self-signed one under dataDir/signing. */
+  signing?: { p12Path: string; passphrase: string };
 };
 
 export class ConfigError extends Error {
@@ -139,6 +143,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   if (e.PUBLIC_URL && e.BASE_URL && e.PUBLIC_URL.replace(/\/+$/, '') !== e.BASE_URL.replace(/\/+$/, '')) {
     problems.push('PUBLIC_URL and BASE_URL name the same thing: set one of them, or the same value in both');
   }
+  if (e.SIGNING_P12_PASSPHRASE !== undefined && !e.SIGNING_P12_PATH) problems.push('SIGNING_P12_PATH must be set when SIGNING_P12_PASSPHRASE is set');
   if (problems.length) throw new ConfigError(problems);
 
   const baseUrl = (e.PUBLIC_URL ?? e.BASE_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, '');
@@ -158,5 +163,6 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     signupEnabled: e.SIGNUP_ENABLED,
     seedDemo: e.SEED_DEMO,
     clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,
+    signing: e.SIGNING_P12_PATH ? { p12Path: path.resolve(cwd, e.SIGNING_P12_PATH), passphrase: e.SIGNING_P12_PASSPHRASE ?? '' } : undefined,
   };
 }

@@ -2,6 +2,7 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { and, asc, eq, inArray, lte, or, sql } from 'drizzle-orm';
+import { recordAudit } from '../audit/record';
 import type { Db } from '../db/client';
 import { mailOutbox, type OutboxAttachment } from '../db/schema';
 import type { Logger } from '../logger';
@@ -48,6 +49,12 @@ export type Outbox = {
   kick(): void;
   /** Stops the loop and waits for a run in progress. */
   stop(): Promise<void>;
+  /**
+   * Sends a message again: a failed or queued row is due now with a fresh attempt count; a sent
+   * row is copied to a new row (same content and attachments, a new Message-ID, since it is a new
+   * delivery). Returns the row that will be sent, or null when there is no such row.
+   */
+  resend(id: string, tx?: Db): Promise<{ id: string; messageId: string; copied: boolean } | null>;
 };
 
 /** Delay before attempt n+1 after n failed attempts: base·2^(n−1), capped. */
@@ -143,7 +150,20 @@ export function createOutbox(opts: OutboxOptions): Outbox {
           content: fs.readFileSync(path.join(opts.dataDir, a.path)),
         }));
         await mailer.send({ to: row.to, subject: row.subject, text: row.text, html: row.html, attachments, messageId: row.messageId });
-        await db.update(mailOutbox).set({ status: 'sent', sentAt: clock(), lastError: null, claimToken: null }).where(mine);
+        // The 'sent' mark and its audit row together (ISO/IEC 17025:2017 §7.5: every e-mail sent is recorded).
+        await db.transaction(async (tx) => {
+          const done = await tx.update(mailOutbox).set({ status: 'sent', sentAt: clock(), lastError: null, claimToken: null }).where(mine).returning({ id: mailOutbox.id });
+          if (done.length) {
+            await recordAudit(tx, {
+              actor: null,
+              action: 'send_email',
+              entity: 'mail',
+              entityId: row.id,
+              after: { to: row.to, subject: row.subject, messageId: row.messageId, attempts: row.attempts, attachments: row.attachments.map((a) => ({ filename: a.filename, sha256: a.sha256 })) },
+              at: clock(),
+            });
+          }
+        });
         result.sent++;
       } catch (err) {
         const message = err instanceof Error ? err.message : String(err);
@@ -183,9 +203,30 @@ export function createOutbox(opts: OutboxOptions): Outbox {
       });
   }
 
+  async function resend(id: string, tx: Db = db) {
+    const [row] = await tx.select().from(mailOutbox).where(eq(mailOutbox.id, id));
+    if (!row) return null;
+    if (row.status === 'sent' || row.status === 'sending') {
+      const copy = await enqueue(
+        {
+          to: row.to,
+          subject: row.subject,
+          text: row.text,
+          html: row.html ?? undefined,
+          attachments: row.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: fs.readFileSync(path.join(opts.dataDir, a.path)) })),
+        },
+        tx,
+      );
+      return { ...copy, copied: true };
+    }
+    await tx.update(mailOutbox).set({ status: 'queued', attempts: 0, nextAttemptAt: clock(), claimToken: null }).where(eq(mailOutbox.id, id));
+    return { id: row.id, messageId: row.messageId, copied: false };
+  }
+
   return {
     enqueue,
     runOnce,
+    resend,
     start(ms = 5_000) {
       intervalMs = ms;
       stopped = false;

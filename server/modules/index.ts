@@ -28,6 +28,17 @@ import { createJobSources } from './jobs/sources';
 import { createPointsService } from './points/points.service';
 import { pointsRoutes } from './points/points.routes';
 import { sharedMcmPool } from './calculations/mcm-pool';
+import { createCertificatesRepository } from './certificates/certificates.repository';
+import { certificatesRoutes } from './certificates/certificates.routes';
+import { createCertificatesService } from './certificates/certificates.service';
+import { certificatePdfPool } from './certificates/pdf-pool';
+import { createReviewService } from './review/review.service';
+import { reviewRoutes } from './review/review.routes';
+import { portalRoutes } from './portal/portal.routes';
+import { createVerifyService } from './verify/verify.service';
+import { verifyRoutes } from './verify/verify.routes';
+import { createMailAdminService } from './mail-admin/mail-admin.service';
+import { mailAdminRoutes } from './mail-admin/mail-admin.routes';
 
 /**
  * Wires repositories → services → routes and mounts each module under /api.
@@ -62,4 +73,16 @@ export function registerModules(router: Router, deps: AppDeps): void {
   router.use('/points', pointsRoutes(points, jobs, runs));
   router.use('/calculations', calculationsRoutes());
   router.use('/runs', runsRoutes(runs));
+
+  // Review, certificates, portal, public verification, e-mail log (issue 6).
+  const certificatesRepo = createCertificatesRepository(db);
+  const certificates = createCertificatesService({
+    db, config: deps.config, clock: deps.clock, logger: deps.logger, outbox: deps.outbox, certificatesRepo, jobs, jobsRepo, labRepo, customersRepo,
+    renderPdf: (data) => certificatePdfPool(deps).renderCertificate(data),
+  });
+  router.use('/review', reviewRoutes(createReviewService({ db, auth: deps.auth, clock: deps.clock, jobs, certificates, certificatesRepo })));
+  router.use('/certificates', certificatesRoutes(certificates));
+  router.use('/portal', portalRoutes(certificates));
+  router.use('/verify', verifyRoutes(createVerifyService({ certificatesRepo })));
+  router.use('/mail', mailAdminRoutes(createMailAdminService({ db, outbox: deps.outbox, certificatesRepo, clock: deps.clock, dataDir: deps.config.dataDir, fakeSmtp: !deps.config.smtp })));
 }

@@ -8,3 +8,4 @@ export * from './seed-runs';
 export * from './jobs';
 export * from './templates';
 export * from './standards';
+export * from './certificates';
