@@ -17,7 +17,7 @@ export interface ReferenceCase {
   computed: Record<string, unknown>;
 }
 
-const FILE = join(import.meta.dirname, '../../../../shared/reference/uncertainty-cases.json');
+const FILE = join(import.meta.dirname, '../../fixtures/reference/uncertainty-cases.json');
 export const referenceCases: ReferenceCase[] = JSON.parse(readFileSync(FILE, 'utf8'));
 
 export function referenceCase(id: string): ReferenceCase {

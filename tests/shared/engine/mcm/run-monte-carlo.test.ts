@@ -3,7 +3,7 @@ import { EngineError } from '../../../../shared/engine/errors';
 import { EXACT_CAPACITY, OutputAccumulator, coverageInterval, runMonteCarlo } from '../../../../shared/engine/mcm';
 import { createRandom } from '../../../../shared/engine/random';
 import type { BudgetDocument, CompiledModel, McmOptions } from '../../../../shared/engine/types';
-import cases from '../../../../../shared/reference/uncertainty-cases.json';
+import cases from '../../../fixtures/reference/uncertainty-cases.json';
 
 /** A hand-built CompiledModel (the model compiler is tested elsewhere): only `kernel` is used. */
 function handModel(inputSymbols: string[], f: (x: Float64Array[], t: number) => number): CompiledModel {
