@@ -29,6 +29,8 @@ export default defineConfig({
           root: '.',
           include: ['tests/shared/**/*.test.ts', 'tests/templates/**/*.test.ts'],
           environment: 'node',
+          // Monte Carlo tests run 10^6 trials; on a loaded 2-core machine that can take a while.
+          testTimeout: 300_000,
         },
       },
       {
@@ -50,6 +52,7 @@ export default defineConfig({
           include: ['tests/client/**/*.test.tsx'],
           environment: 'happy-dom',
           setupFiles: ['tests/setup/client-setup.ts'],
+          testTimeout: 60_000,
         },
       },
       {
