@@ -5,6 +5,7 @@ import { resolveAuthSecret } from './auth/secret';
 import type { Mailer } from './mail/mailer';
 import { createOutbox, type Outbox } from './mail/outbox';
 import type { Logger } from './logger';
+import { createTaskRunner, type TaskRunner } from './tasks';
 
 /**
  * Everything the app needs from outside, built once in server/index.ts (or tests/setup/test-app.ts)
@@ -19,6 +20,8 @@ export type AppDeps = {
   /** The time; injectable so tests can move it. */
   clock: () => Date;
   logger: Logger;
+  /** Background tasks (Monte Carlo, certificate PDFs): in-process pool or the durable queue (server/tasks). */
+  tasks: TaskRunner;
 };
 
 /** Builds AppDeps around an open database and a mailer. */
@@ -46,5 +49,6 @@ export function createAppDeps(opts: {
     dataDir: opts.config.dataDir,
     messageIdDomain: new URL(opts.config.baseUrl).hostname || 'emberline.invalid',
   });
-  return { config: opts.config, database: opts.database, auth, mailer: opts.mailer, outbox, clock, logger: opts.logger };
+  const tasks = createTaskRunner({ config: opts.config, database: opts.database, logger: opts.logger });
+  return { config: opts.config, database: opts.database, auth, mailer: opts.mailer, outbox, clock, logger: opts.logger, tasks };
 }

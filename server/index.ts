@@ -41,12 +41,14 @@ async function main() {
     server.once('error', reject);
   }).catch((err) => failOnBusyPort(err, config.port, 'PORT'));
   deps.outbox.start();
+  await deps.tasks.start();
 
   const port = (server.address() as AddressInfo).port;
   const lines = [
     '',
     `Emberline is running: ${config.baseUrl}${port !== config.port ? ` (listening on port ${port})` : ''}`,
     `  database: ${database.kind === 'pglite' ? `embedded PGlite in ${path.join(config.dataDir, 'pglite')}` : 'PostgreSQL (DATABASE_URL)'}`,
+    `  tasks:    ${deps.tasks.mode === 'durable' ? 'durable queue in PostgreSQL (pg-boss), shared by every instance on this database' : 'in-process worker pool'}`,
     `  mail:     ${fakeSmtp ? `local fake SMTP on 127.0.0.1:${fakeSmtp.port}, messages kept in ${path.join(config.dataDir, 'mailbox')}` : `SMTP ${config.smtp!.host}:${config.smtp!.port}`}`,
   ];
   if (config.seedDemo) {
@@ -65,6 +67,7 @@ async function main() {
     server.closeIdleConnections();
     await new Promise<void>((resolve) => server.close(() => resolve()));
     await deps.outbox.stop();
+    await deps.tasks.stop();
     mailer.close();
     await fakeSmtp?.stop();
     await database.close();

@@ -71,6 +71,18 @@ const envSchema = z.object({
   SIGNING_P12_PATH: optionalText,
   SIGNING_P12_PASSPHRASE: z.string().optional(),
   SEED_DEMO: bool('SEED_DEMO', true),
+  TASK_QUEUE: optionalText
+    .refine((v) => v === undefined || ['auto', 'in-process', 'pgboss'].includes(v), { message: 'TASK_QUEUE must be auto, in-process or pgboss' })
+    .transform((v) => (v ?? 'auto') as 'auto' | 'in-process' | 'pgboss'),
+  TASK_CONCURRENCY: optionalText.transform((v, ctx) => {
+    if (v === undefined) return undefined;
+    const n = Number(v);
+    if (!Number.isInteger(n) || n < 1 || n > 64) {
+      ctx.addIssue({ code: 'custom', message: `TASK_CONCURRENCY must be a whole number from 1 to 64, got "${v}"` });
+      return z.NEVER;
+    }
+    return n;
+  }),
   EMBERLINE_CLOCK_OFFSET_DAYS: optionalText.transform((v, ctx) => {
     if (v === undefined) return 0;
     const n = Number(v);
@@ -108,6 +120,10 @@ export type Config = {
   fakeSmtpPort: number;
   signupEnabled: boolean;
   seedDemo: boolean;
+  /** Where background tasks run: auto (pgboss with DATABASE_URL, else in-process), in-process, pgboss. */
+  taskQueue: 'auto' | 'in-process' | 'pgboss';
+  /** Durable queue: tasks of each kind one instance runs at once (unset: half the cores). */
+  taskConcurrency?: number;
   /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
   clockOffsetDays: number;
   /** The lab's own signing P12 (path, passphrase); unset: a self-signed one under dataDir/signing. */
@@ -144,6 +160,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     problems.push('PUBLIC_URL and BASE_URL name the same thing: set one of them, or the same value in both');
   }
   if (e.SIGNING_P12_PASSPHRASE !== undefined && !e.SIGNING_P12_PATH) problems.push('SIGNING_P12_PATH must be set when SIGNING_P12_PASSPHRASE is set');
+  if (e.TASK_QUEUE === 'pgboss' && !e.DATABASE_URL) problems.push('TASK_QUEUE=pgboss needs DATABASE_URL (the queue lives in PostgreSQL)');
   if (problems.length) throw new ConfigError(problems);
 
   const baseUrl = (e.PUBLIC_URL ?? e.BASE_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, '');
@@ -162,6 +179,8 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     fakeSmtpPort: e.FAKE_SMTP_PORT,
     signupEnabled: e.SIGNUP_ENABLED,
     seedDemo: e.SEED_DEMO,
+    taskQueue: e.TASK_QUEUE,
+    taskConcurrency: e.TASK_CONCURRENCY,
     clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,
     signing: e.SIGNING_P12_PATH ? { p12Path: path.resolve(cwd, e.SIGNING_P12_PATH), passphrase: e.SIGNING_P12_PASSPHRASE ?? '' } : undefined,
   };

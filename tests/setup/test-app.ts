@@ -114,6 +114,7 @@ export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp>
     },
     async close() {
       await deps.outbox.stop();
+      await deps.tasks.stop();
       mailer.close();
       await smtp.stop();
       await database.close();

@@ -9,3 +9,4 @@ export * from './jobs';
 export * from './templates';
 export * from './standards';
 export * from './certificates';
+export * from './tasks';
