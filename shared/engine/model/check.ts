@@ -190,7 +190,14 @@ export function checkEquation(
     switch (node.type) {
       case 'ConstantNode': {
         const v = node.value;
-        if (typeof v === 'number') return;
+        if (typeof v === 'number') {
+          // "Infinity", "NaN" and literals beyond binary64 (1e400) parse to non-finite constants.
+          if (!Number.isFinite(v)) {
+            const t = loc.tokens.find((k) => (k.kind === 'number' && !Number.isFinite(Number(k.text))) || (k.kind === 'name' && (k.text === 'Infinity' || k.text === 'NaN')));
+            issue('NON_FINITE', `${eqName}: "${t?.text ?? String(v)}" is not a finite number`, t ? { position: t.pos, length: t.text.length } : { position: 0, length: 1 });
+          }
+          return;
+        }
         if (typeof v === 'string') issue('FORBIDDEN_SYNTAX', `${eqName}: text strings are not allowed (${describe(node)})`, loc.kind('string'));
         else issue('FORBIDDEN_SYNTAX', `${eqName}: "${String(v)}" is not a number`, loc.name(String(v)));
         return;

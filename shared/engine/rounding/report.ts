@@ -19,15 +19,28 @@ export interface RoundedUncertainty {
 const NOISE = 1e-9;
 
 function toPlace(v: number, place: number, mode: 'round' | 'up'): number {
+  // Below 1e-300 the scale factor 10^-place overflows binary64: keep v as it is.
+  if (place < -300) return v;
   const scaled = place <= 0 ? v * 10 ** -place : v / 10 ** place;
   const n = mode === 'up' ? Math.ceil(scaled - NOISE * Math.abs(scaled)) : Math.round(scaled + NOISE * Math.abs(scaled) * Math.sign(scaled));
   return place <= 0 ? n / 10 ** -place : n * 10 ** place;
 }
 
+/**
+ * `v` as text with its last digit at decimal exponent `place`. Number.prototype.toFixed accepts at
+ * most 100 digits (ECMA-262 §21.1.3.3), so beyond 10^-100 the text takes an exponent instead.
+ */
+function fixedText(v: number, place: number): string {
+  if (place >= 0) return String(Math.round(v));
+  if (-place <= 100) return v.toFixed(-place);
+  const exponent = v === 0 ? place : Math.floor(Math.log10(Math.abs(v)));
+  return v.toExponential(Math.min(100, Math.max(0, exponent - place)));
+}
+
 /** Format `v` with its last digit at decimal exponent `place`. */
 export function formatAtPlace(v: number, place: number): string {
   const rounded = toPlace(v, place, 'round');
-  const text = place < 0 ? rounded.toFixed(-place) : String(Math.round(rounded));
+  const text = fixedText(rounded, place);
   return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
 }
 
@@ -50,7 +63,7 @@ export function roundUncertainty(U: number, digits: 1 | 2 = 2): RoundedUncertain
   }
   // 9.96 → 10.0: the carry adds a digit; keep `digits` significant digits.
   if (value >= 10 ** (place + digits) * (1 - NOISE)) place += 1;
-  const text = place < 0 ? value.toFixed(-place) : String(Math.round(value));
+  const text = fixedText(value, place);
   return { value, place, text, roundedUp };
 }
 
