@@ -1,5 +1,7 @@
 import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
+import { APIError } from 'better-auth/api';
+import { eq } from 'drizzle-orm';
 import type { Config } from '../config/env';
 import type { Db } from '../db/client';
 import { account, session, user, verification } from '../db/schema';
@@ -38,6 +40,17 @@ export function createAuth(opts: { config: Config; db: Db; secret: string }) {
       additionalFields: {
         role: { type: 'string', required: false, input: false },
         customerId: { type: 'string', required: false, input: false },
+      },
+    },
+    databaseHooks: {
+      session: {
+        create: {
+          // A deactivated account gets no session, whatever the password (issue 7).
+          before: async (s) => {
+            const [row] = await opts.db.select({ deactivatedAt: user.deactivatedAt }).from(user).where(eq(user.id, s.userId));
+            if (row?.deactivatedAt) throw new APIError('FORBIDDEN', { message: 'This account has been deactivated. Ask an administrator to reactivate it.', code: 'ACCOUNT_DEACTIVATED' });
+          },
+        },
       },
     },
     session: {

@@ -10,8 +10,17 @@ import { meRoutes } from './me/me.routes';
 import { createTemplatesService } from './templates/templates.service';
 import { templatesRoutes } from './templates/templates.routes';
 import { createUsersRepository } from './users/users.repository';
-import { usersRoutes } from './users/users.routes';
+import { invitationsRoutes, usersRoutes } from './users/users.routes';
 import { createUsersService } from './users/users.service';
+import { createFileStore } from '../files/file-store';
+import { createStandardsRepository } from './standards/standards.repository';
+import { standardsRoutes } from './standards/standards.routes';
+import { createStandardsService } from './standards/standards.service';
+import { createItemsRepository } from './items/items.repository';
+import { itemsRoutes } from './items/items.routes';
+import { createCustomersService } from './customers/customers.service';
+import { createAuditRepository } from './audit/audit.repository';
+import { auditRoutes } from './audit/audit.routes';
 import { createFileStore } from '../files/file-store';
 import { createStandardsRepository } from './standards/standards.repository';
 import { standardsRoutes } from './standards/standards.routes';
@@ -51,12 +60,23 @@ export function registerModules(router: Router, deps: AppDeps): void {
   const usersRepo = createUsersRepository(db);
 
   const lab = createLabService({ db, labRepo, clock: deps.clock });
-  const users = createUsersService({ db, usersRepo, customersRepo, auth: deps.auth, clock: deps.clock });
+  const users = createUsersService({
+    db,
+    usersRepo,
+    customersRepo,
+    auth: deps.auth,
+    clock: deps.clock,
+    outbox: deps.outbox,
+    baseUrl: deps.config.baseUrl,
+    labName: async (tx) => (await labRepo.get(tx)).name,
+  });
 
   router.use('/health', healthRoutes(deps));
   router.use('/lab', labRoutes(lab));
   router.use('/me', meRoutes(lab));
   router.use('/users', usersRoutes(users));
+  router.use('/invitations', invitationsRoutes(users));
+  router.use('/audit', auditRoutes({ db, auditRepo: createAuditRepository(db), clock: deps.clock }));
   const customersService = createCustomersService({ db, customersRepo, itemsRepo: createItemsRepository(db), clock: deps.clock });
   router.use('/customers', customersRoutes(customersService));
   router.use('/items', itemsRoutes(customersService));

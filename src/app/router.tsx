@@ -18,16 +18,21 @@ import { SectionPage } from './routes/section-page';
 import { SignInPage } from './routes/sign-in';
 import { TemplatesPage, TemplateVersionPage } from './routes/templates-page';
 import { VerifyPage } from './routes/verify';
+import { StandardDetailPage, StandardsPage } from './routes/standards-page';
+import { CustomerPage, CustomersPage } from './routes/customers-page';
+import { UsersPage } from './routes/users-page';
+import { AuditPage } from './routes/audit-page';
+import { SetPasswordPage } from './routes/set-password';
 
 /** The page of each /app section. Replace an entry when its feature is built. */
 const SECTION_PAGES: Record<SectionId, ReactNode> = {
-  users: <SectionPage id="users" />,
+  users: <UsersPage />,
   lab: <SectionPage id="lab" />,
   mail: <SectionPage id="mail" />,
-  audit: <SectionPage id="audit" />,
+  audit: <AuditPage />,
   templates: <TemplatesPage />,
-  standards: <SectionPage id="standards" />,
-  customers: <SectionPage id="customers" />,
+  standards: <StandardsPage />,
+  customers: <CustomersPage />,
   jobs: <SectionPage id="jobs" />,
   review: <SectionPage id="review" />,
   certificates: <SectionPage id="certificates" />,
@@ -73,6 +78,7 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { index: true, element: <LandingPage /> },
             { path: 'sign-in', loader: redirectIfSignedIn(queryClient), element: <SignInPage /> },
             { path: 'verify', element: <VerifyPage /> },
+            { path: 'set-password', element: <SetPasswordPage /> },
             { path: '*', element: <StandaloneNotFound /> },
           ],
         },
@@ -93,6 +99,8 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             },
             ...Object.values(SECTIONS).map((section) => ({ path: section.path, element: SECTION_PAGES[section.id] })),
             { path: 'templates/versions/:versionId', element: <TemplateVersionPage /> },
+            { path: 'standards/:id', element: <StandardDetailPage /> },
+            { path: 'customers/:id', element: <CustomerPage /> },
             { path: '*', element: <NotFoundPage home="/app" /> },
           ],
         },

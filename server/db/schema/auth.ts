@@ -27,6 +27,8 @@ export const user = pgTable(
     role: text('role'),
     /** Set for role 'customer' only: the organisation whose certificates the user may see. */
     customerId: uuid('customer_id').references(() => customers.id, { onDelete: 'restrict' }),
+    /** Set when an admin deactivated the account: no sign-in, no session (server/auth/auth.ts). */
+    deactivatedAt: timestamp('deactivated_at', { withTimezone: true }),
   },
   (t) => [
     check('user_role_check', sql`${t.role} IS NULL OR ${t.role} IN (${sql.raw(ROLES.map((r) => `'${r}'`).join(', '))})`),

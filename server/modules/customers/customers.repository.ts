@@ -1,6 +1,6 @@
 import { asc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { customerContacts, customerItems, customers } from '../../db/schema';
+import { customerContacts, customers } from '../../db/schema';
 import type { Contact } from '../../../shared/schemas/customers.schema';
 
 export type CustomerSummary = { id: string; organisation: string; address: string; contactCount: number; itemCount: number };
@@ -22,8 +22,8 @@ export function createCustomersRepository(db: Db) {
           id: customers.id,
           organisation: customers.organisation,
           address: customers.address,
-          contactCount: sql<number>`(select cast(count(*) as int) from ${customerContacts} where ${customerContacts.customerId} = ${customers.id})`,
-          itemCount: sql<number>`(select cast(count(*) as int) from ${customerItems} where ${customerItems.customerId} = ${customers.id})`,
+          contactCount: sql<number>`(select cast(count(*) as int) from customer_contacts cc where cc.customer_id = "customers"."id")`,
+          itemCount: sql<number>`(select cast(count(*) as int) from customer_items ci where ci.customer_id = "customers"."id")`,
         })
         .from(customers)
         .orderBy(asc(customers.organisation));
