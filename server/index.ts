@@ -9,6 +9,8 @@ import { startFakeSmtp, type FakeSmtp } from './mail/fake-smtp';
 import { createMailer } from './mail/mailer';
 import { consoleLogger as logger } from './logger';
 import { ROLE_LABELS } from '../shared/schemas/roles';
+import { labSigningIdentity } from './modules/certificates/lab-identity';
+import { createLabRepository } from './modules/lab/lab.repository';
 
 // Start-up: configuration → database (migrated) → demo seed → mail → app → listen.
 async function main() {
@@ -33,6 +35,8 @@ async function main() {
   const mailer = createMailer({ from: config.mailFrom, smtp: config.smtp, fakePort: fakeSmtp?.port });
   const deps = createAppDeps({ config, database, mailer, logger });
   if (config.seedDemo) await runSeed(deps);
+  // The certificate signing identity: a configured P12, or the self-signed one made on first start.
+  const signing = await labSigningIdentity(config, (await createLabRepository(database.db).get()).name);
 
   const app = createApp(deps, { clientDir: path.resolve(process.cwd(), 'dist/client') });
   const server = app.listen(config.port, config.host);
@@ -51,6 +55,7 @@ async function main() {
     `  tasks:    ${deps.tasks.mode === 'durable' ? 'durable queue in PostgreSQL (pg-boss), shared by every instance on this database' : 'in-process worker pool'}`,
     `  mail:     ${fakeSmtp ? `local fake SMTP on 127.0.0.1:${fakeSmtp.port}, messages kept in ${path.join(config.dataDir, 'mailbox')}` : `SMTP ${config.smtp!.host}:${config.smtp!.port}`}`,
   ];
+  lines.push(`  signing:  ${signing.subject} (${signing.source === 'configured' ? 'SIGNING_P12_PATH' : 'self-signed, in ' + path.join(config.dataDir, 'signing')}), certificate SHA-256 ${signing.fingerprint.slice(0, 16)}…`);
   if (config.seedDemo) {
     lines.push(`  demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const u of DEMO_USERS) lines.push(`    ${ROLE_LABELS[u.role].padEnd(22)} ${u.email}`);

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm';
 import type { Auth } from '../../auth/auth';
+import type { Config } from '../../config/env';
 import type { Logger } from '../../logger';
 import type { Database, Db } from '../client';
 import { customerContacts, customers, seedRuns } from '../schema';
@@ -10,10 +11,11 @@ import { createUsersService } from '../../modules/users/users.service';
 import { shippedTemplatesSeedStep } from '../../modules/templates/shipped-templates';
 import { standardsSeedStep } from '../../modules/standards/standards.seed';
 import { itemsSeedStep } from '../../modules/items/items.seed';
+import { certificatesSeedStep } from '../../modules/certificates/certificates.seed';
 import { DEMO_CUSTOMERS, DEMO_LAB, DEMO_PASSWORD, DEMO_USERS } from './demo-data';
 
 /** What a seed step gets: `db` is the transaction the step runs in. */
-export type SeedContext = { db: Db; auth: Auth; clock: () => Date; logger: Logger };
+export type SeedContext = { db: Db; auth: Auth; clock: () => Date; logger: Logger; config?: Config };
 
 /**
  * One step of the demo scenario. Each step runs once per database, in its own transaction
@@ -56,11 +58,11 @@ const usersStep: SeedStep = {
 };
 
 /** The demo scenario in order. Later features append their steps here (templates, jobs, …). */
-export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, standardsSeedStep, itemsSeedStep, shippedTemplatesSeedStep];
+export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, standardsSeedStep, itemsSeedStep, shippedTemplatesSeedStep, certificatesSeedStep];
 
 /** Runs every step not yet recorded in `seed_runs`. Returns the names of the steps that ran. */
 export async function runSeed(
-  deps: { database: Database; auth: Auth; clock: () => Date; logger: Logger },
+  deps: { database: Database; auth: Auth; clock: () => Date; logger: Logger; config?: Config },
   steps: SeedStep[] = SEED_STEPS,
 ): Promise<string[]> {
   const ran: string[] = [];
@@ -68,7 +70,7 @@ export async function runSeed(
     const did = await deps.database.db.transaction(async (tx) => {
       const done = await tx.select().from(seedRuns).where(eq(seedRuns.step, step.name));
       if (done.length) return false;
-      await step.run({ db: tx, auth: deps.auth, clock: deps.clock, logger: deps.logger });
+      await step.run({ db: tx, auth: deps.auth, clock: deps.clock, logger: deps.logger, config: deps.config });
       await tx.insert(seedRuns).values({ step: step.name, ranAt: deps.clock() });
       return true;
     });
