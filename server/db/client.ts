@@ -64,7 +64,7 @@ export async function openDatabase(options: OpenDatabaseOptions): Promise<Databa
     const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
     const db = drizzlePg({ client: pool, schema });
     try {
-      if (shouldMigrate) await migratePg(db, { migrationsFolder });
+      if (shouldMigrate) await withMigrationLock(pool, () => migratePg(db, { migrationsFolder }));
     } catch (err) {
       await pool.end();
       throw err;
@@ -108,4 +108,20 @@ export async function openDatabase(options: OpenDatabaseOptions): Promise<Databa
       if (!client.closed) await client.close();
     },
   };
+}
+
+/**
+ * Several app instances may start at once against one server: a session-level advisory lock,
+ * held on its own connection, lets one of them apply the migrations while the others wait and
+ * then find nothing left to apply.
+ */
+async function withMigrationLock<T>(pool: pg.Pool, fn: () => Promise<T>): Promise<T> {
+  const lockClient = await pool.connect();
+  try {
+    await lockClient.query('SELECT pg_advisory_lock(hashtext($1))', ['emberline:migrations']);
+    return await fn();
+  } finally {
+    await lockClient.query('SELECT pg_advisory_unlock(hashtext($1))', ['emberline:migrations']).catch(() => {});
+    lockClient.release();
+  }
 }
