@@ -8,6 +8,7 @@ import { createLabRepository } from '../../modules/lab/lab.repository';
 import { createCustomersRepository } from '../../modules/customers/customers.repository';
 import { createUsersRepository } from '../../modules/users/users.repository';
 import { createUsersService } from '../../modules/users/users.service';
+import { jobsSeedStep } from '../../modules/jobs/jobs.seed';
 import { shippedTemplatesSeedStep } from '../../modules/templates/shipped-templates';
 import { standardsSeedStep } from '../../modules/standards/standards.seed';
 import { itemsSeedStep } from '../../modules/items/items.seed';
@@ -58,7 +59,7 @@ const usersStep: SeedStep = {
 };
 
 /** The demo scenario in order. Later features append their steps here (templates, jobs, …). */
-export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, standardsSeedStep, itemsSeedStep, shippedTemplatesSeedStep, certificatesSeedStep];
+export const SEED_STEPS: SeedStep[] = [labStep, customersStep, usersStep, standardsSeedStep, itemsSeedStep, shippedTemplatesSeedStep, jobsSeedStep, certificatesSeedStep];
 
 /** Runs every step not yet recorded in `seed_runs`. Returns the names of the steps that ran. */
 export async function runSeed(

@@ -13,3 +13,9 @@ export function sharedMcmPool(deps: AppDeps): WorkerPool {
   own ??= createWorkerPool();
   return own;
 }
+
+/** Ends the pool created here, if any (benchmarks, tools). */
+export async function sharedMcmPoolForShutdown(): Promise<void> {
+  await own?.destroy();
+  own = null;
+}

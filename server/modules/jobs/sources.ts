@@ -30,7 +30,7 @@ export type JobItem = {
 };
 
 /** One certified value of a reference standard: value with U and k, in SI. */
-export type CertifiedValue = { label: string; value: number; U: number; k: number; unit: string };
+export type CertifiedValue = { label: string; value: number; U: number; k: number; unit: string; at?: { value: number; unit: string } | null };
 
 export type BudgetStandard = {
   id: string;
@@ -72,6 +72,7 @@ export function createJobSources(db: Db, clock: () => Date): JobSources {
       .sort((a, b) => a.position - b.position)
       .map((v) => ({
         label: `${v.quantity}${v.atValue !== null ? ` at ${v.atValue} ${v.atUnit ?? ''}`.trimEnd() : ''}`,
+        at: v.atValue === null ? null : { value: v.atValue, unit: v.atUnit ?? '' },
         value: v.value,
         U: v.expandedUncertainty,
         k: v.coverageFactor,

@@ -29,6 +29,27 @@ function toSi(values: number[], from: string | undefined, si: string | undefined
   }
 }
 
+/** The certified value stated nearest the point's nominal value (the first when none says where it applies). */
+function nearestValue(values: Array<{ at?: { value: number; unit: string } | null }>, nominal: number | undefined, unit: string | undefined): number {
+  if (nominal === undefined || !unit) return 0;
+  let best = 0;
+  let bestDist = Infinity;
+  values.forEach((v, i) => {
+    if (!v.at) return;
+    let at: number;
+    try {
+      at = convert(v.at.value, v.at.unit, unit);
+    } catch {
+      return;
+    }
+    if (Math.abs(at - nominal) < bestDist) {
+      bestDist = Math.abs(at - nominal);
+      best = i;
+    }
+  });
+  return best;
+}
+
 export function createPointsService(deps: { db: Db; jobsRepo: JobsRepository; sources: JobSources; clock: () => Date }) {
   const { db, jobsRepo, sources, clock } = deps;
 
@@ -151,25 +172,42 @@ export function createPointsService(deps: { db: Db; jobsRepo: JobsRepository; so
     async fromStandard(pointId: string, symbol: string, body: { standardId: string; valueIndex?: number }, actor: Actor) {
       const standard = await sources.getStandard(body.standardId);
       if (!standard) throw new ValidationError([{ path: ['body', 'standardId'], message: 'there is no such reference standard in the register' }]);
-      const v = standard.values[body.valueIndex ?? 0];
+      const pre = await jobsRepo.point(pointId);
+      const v = standard.values[body.valueIndex ?? nearestValue(standard.values, pre?.nominalValue, pre?.nominalUnit)];
       if (!v) throw new ValidationError([{ path: ['body', 'valueIndex'], message: `${standard.name} has ${standard.values.length} certified value(s)` }]);
       return db.transaction(async (tx) => {
         const { point } = await lockPoint(tx, pointId, actor);
         const { inputs, index } = inputOf(point, symbol);
         const input = inputs[index];
+        const dimensionless = (u: string | undefined) => !u || u.trim() === '' || u.trim() === '1';
+        const sameUnit = (dimensionless(input.unit) && dimensionless(v.unit)) || formatUnit(input.unit ?? '') === formatUnit(v.unit ?? '');
+        // A certified correction (or offset) gives the uncertainty of the standard's reading, not
+        // the reading itself: the estimate stays the one entered (or the point's nominal value).
+        const correction = /correction|offset/i.test(v.label);
         let mean = v.value;
         let U = v.U;
-        if (input.unit && v.unit && formatUnit(input.unit) !== formatUnit(v.unit)) {
+        if (!sameUnit) {
           try {
-            mean = convert(v.value, v.unit, input.unit);
-            U = convertInterval(v.U, v.unit, input.unit);
+            mean = convert(v.value, v.unit, input.unit ?? '');
+            U = convertInterval(v.U, v.unit, input.unit ?? '');
           } catch {
-            throw new ValidationError([{ path: ['body', 'valueIndex'], message: `the certified value is in ${v.unit}, the input in ${input.unit}` }], `The certified value of ${standard.name} is in ${v.unit}; ${symbol} needs ${input.unit}.`);
+            throw new ValidationError([{ path: ['body', 'valueIndex'], message: `the certified value is in ${v.unit || 'no unit'}, the input in ${input.unit}` }], `The certified value of ${standard.name} is in ${v.unit || 'no unit'}; ${symbol} needs ${input.unit}.`);
           }
+        }
+        if (correction) {
+          const d = input.distribution;
+          const current = d && 'mean' in d ? (d as { mean: number }).mean : null;
+          let nominal: number | null;
+          try {
+            nominal = convert(point.nominalValue, point.nominalUnit, input.unit ?? '');
+          } catch {
+            nominal = null;
+          }
+          mean = current ?? nominal ?? 0;
         }
         const now = clock();
         const next = inputs.map((i, k) =>
-          k === index ? { ...i, distribution: { type: 'normal' as const, mean, expanded: U, k: v.k }, standardId: standard.id, standardNote: `${standard.name}${standard.certificateNumber ? `, certificate ${standard.certificateNumber}` : ''}: ${v.label}` } : i,
+          k === index ? { ...i, distribution: { type: 'normal' as const, mean, expanded: U, k: v.k }, standardId: standard.id, standardNote: `${standard.name}${standard.certificateNumber ? `, certificate ${standard.certificateNumber}` : ''}: ${v.label}${correction ? ' (U and k of the correction; the value is the reading)' : ''}` } : i,
         );
         const row = await jobsRepo.updatePoint(tx, pointId, { inputs: next, changedAt: now });
         await audit(tx, actor, 'take_from_standard', pointId, { symbol, distribution: input.distribution, standardId: input.standardId ?? null }, { symbol, standardId: standard.id, value: mean, U, k: v.k });
