@@ -18,6 +18,7 @@ import { SectionPage } from './routes/section-page';
 import { SignInPage } from './routes/sign-in';
 import { TemplatesPage, TemplateVersionPage } from './routes/templates-page';
 import { VerifyPage } from './routes/verify';
+import { JobDetailPage, JobsPage, NewJobPage } from './routes/jobs-page';
 import { StandardDetailPage, StandardsPage } from './routes/standards-page';
 import { CustomerPage, CustomersPage } from './routes/customers-page';
 import { UsersPage } from './routes/users-page';
@@ -33,7 +34,7 @@ const SECTION_PAGES: Record<SectionId, ReactNode> = {
   templates: <TemplatesPage />,
   standards: <StandardsPage />,
   customers: <CustomersPage />,
-  jobs: <SectionPage id="jobs" />,
+  jobs: <JobsPage />,
   review: <SectionPage id="review" />,
   certificates: <SectionPage id="certificates" />,
   'my-certificates': <SectionPage id="my-certificates" />,
@@ -99,6 +100,8 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             },
             ...Object.values(SECTIONS).map((section) => ({ path: section.path, element: SECTION_PAGES[section.id] })),
             { path: 'templates/versions/:versionId', element: <TemplateVersionPage /> },
+            { path: 'jobs/new', element: <NewJobPage /> },
+            { path: 'jobs/:jobId', element: <JobDetailPage /> },
             { path: 'standards/:id', element: <StandardDetailPage /> },
             { path: 'customers/:id', element: <CustomerPage /> },
             { path: '*', element: <NotFoundPage home="/app" /> },

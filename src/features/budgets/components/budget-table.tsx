@@ -1,0 +1,66 @@
+import type { EvaluationResult } from '../../../../shared/engine';
+import { formatNumber } from '../../../../shared/format/number';
+import { formatUnit } from '../../../../shared/format/units';
+import type { PointInput } from '../../../../shared/schemas/jobs.schema';
+
+const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
+
+/**
+ * The GUM budget (JCGM 100 §5.1, Annex G): per input its estimate, standard uncertainty,
+ * distribution, sensitivity coefficient c_i, contribution |c_i| u(x_i), degrees of freedom and
+ * share of u²(y), as a number and a bar.
+ */
+export function BudgetTable({ result, inputs }: { result: EvaluationResult; inputs: PointInput[] }) {
+  const unitOf = (s: string) => formatUnit(inputs.find((i) => i.symbol === s)?.unit ?? '');
+  const y = formatUnit(result.unit);
+  return (
+    <table className="w-full border-collapse text-sm" aria-label="Uncertainty budget">
+      <thead>
+        <tr className="border-b border-line-strong text-left text-xs uppercase tracking-wide text-ink-muted">
+          <th className="py-1.5 pr-2 font-semibold">Input</th>
+          <th className="py-1.5 pr-2 text-right font-semibold">Estimate x<sub>i</sub></th>
+          <th className="py-1.5 pr-2 text-right font-semibold">u(x<sub>i</sub>)</th>
+          <th className="py-1.5 pr-2 font-semibold">Distribution</th>
+          <th className="py-1.5 pr-2 text-right font-semibold">c<sub>i</sub></th>
+          <th className="py-1.5 pr-2 text-right font-semibold">|c<sub>i</sub>| u(x<sub>i</sub>) / {y}</th>
+          <th className="py-1.5 pr-2 text-right font-semibold">ν<sub>i</sub></th>
+          <th className="py-1.5 font-semibold">Share of u²(y)</th>
+        </tr>
+      </thead>
+      <tbody className="font-mono tabular-nums">
+        {result.gum.budget.map((b) => (
+          <tr key={b.symbol} className="border-b border-line" data-symbol={b.symbol}>
+            <td className="py-1 pr-2 font-sans italic">{b.symbol}</td>
+            <td className="py-1 pr-2 text-right">{num(b.estimate, 7)} <span className="text-ink-muted">{unitOf(b.symbol)}</span></td>
+            <td className="py-1 pr-2 text-right">{num(b.u, 3)}</td>
+            <td className="py-1 pr-2 font-sans">{b.distribution}</td>
+            <td className="py-1 pr-2 text-right">{num(b.c, 4)}</td>
+            <td className="py-1 pr-2 text-right">{num(b.contribution, 3)}</td>
+            <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>
+            <td className="py-1">
+              <div className="flex items-center gap-2">
+                <span className="w-12 text-right">{formatNumber(b.share * 100, { digits: 2 })} %</span>
+                <span className="h-2 flex-1 rounded-sm bg-sunken" aria-hidden="true">
+                  <span className="block h-2 rounded-sm bg-ember" style={{ width: `${Math.min(100, Math.max(0, b.share * 100))}%` }} />
+                </span>
+              </div>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+      <tfoot className="font-mono tabular-nums">
+        <tr>
+          <td className="py-1.5 pr-2 font-sans font-semibold italic">{result.measurand}</td>
+          <td className="py-1.5 pr-2 text-right font-semibold">{num(result.gum.y, 7)} <span className="text-ink-muted">{y}</span></td>
+          <td className="py-1.5 pr-2 text-right font-semibold">{num(result.gum.u, 3)}</td>
+          <td className="py-1.5 pr-2 font-sans text-ink-muted" colSpan={3}>
+            u<sub>c</sub>(y); ν<sub>eff</sub> = {result.gum.nuEff === null ? 'not applicable (correlated inputs)' : result.gum.nuEff === 'infinite' ? '∞' : formatNumber(result.gum.nuEff, { digits: 3 })}
+          </td>
+          <td className="py-1.5 pr-2 text-right font-sans" colSpan={2}>
+            k = {result.gum.k.toFixed(2)}, U = {result.reported.U} {y}
+          </td>
+        </tr>
+      </tfoot>
+    </table>
+  );
+}

@@ -1,0 +1,131 @@
+/**
+ * Charts of a point and a job (recharts). Each takes plain data so the same series can be drawn
+ * as SVG on the certificate later (server/pdf). Axes carry quantity and unit.
+ */
+import { Bar, BarChart, CartesianGrid, ComposedChart, ErrorBar, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
+import type { EvaluationResult } from '../../../../shared/engine';
+import { planck } from '../../../../shared/engine';
+import { formatNumber } from '../../../../shared/format/number';
+import { formatUnit } from '../../../../shared/format/units';
+
+const tick = (v: number) => formatNumber(v, { digits: 4 });
+const axisStyle = { fontSize: 11, fill: 'var(--color-ink-muted)' };
+
+/** Histogram bars of the Monte Carlo values as densities, with the GUM normal N(y, u²) at the same points. */
+export function histogramSeries(result: EvaluationResult, maxBins = 80) {
+  const h = result.mcm!.histogram;
+  const n = h.counts.length;
+  const group = Math.max(1, Math.ceil(n / maxBins));
+  const total = h.counts.reduce((a, b) => a + b, 0);
+  const out: Array<{ x: number; density: number; gum: number }> = [];
+  const { y, u } = result.gum;
+  for (let i = 0; i < n; i += group) {
+    const lo = h.edges[i];
+    const hi = h.edges[Math.min(i + group, n)];
+    let c = 0;
+    for (let j = i; j < Math.min(i + group, n); j++) c += h.counts[j];
+    const x = (lo + hi) / 2;
+    out.push({ x, density: c / total / (hi - lo), gum: u > 0 ? Math.exp(-0.5 * ((x - y) / u) ** 2) / (u * Math.sqrt(2 * Math.PI)) : 0 });
+  }
+  return out;
+}
+
+export function HistogramChart({ result }: { result: EvaluationResult }) {
+  if (!result.mcm) return null;
+  const data = histogramSeries(result);
+  const unit = formatUnit(result.unit);
+  const [gl, gh] = result.gum.interval;
+  const [ml, mh] = result.mcm.interval;
+  return (
+    <figure aria-label="Monte Carlo histogram with the GUM normal distribution">
+      <ResponsiveContainer width="100%" height={260}>
+        <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
+          <CartesianGrid stroke="var(--color-line)" vertical={false} />
+          <XAxis dataKey="x" type="number" domain={['dataMin', 'dataMax']} tickFormatter={tick} tick={axisStyle} label={{ value: `${result.measurand} / ${unit}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <YAxis tickFormatter={tick} tick={axisStyle} label={{ value: `probability density / ${unit}⁻¹`, angle: -90, position: 'insideLeft', offset: 0, style: { ...axisStyle, textAnchor: 'middle' } }} width={72} />
+          <Tooltip formatter={(v) => tick(Number(v))} labelFormatter={(l) => `${tick(Number(l))} ${unit}`} />
+          <ReferenceArea x1={ml} x2={mh} fill="var(--color-ember-soft)" fillOpacity={0.5} />
+          <Bar dataKey="density" name="Monte Carlo" fill="var(--color-ember)" fillOpacity={0.65} isAnimationActive={false} barSize={6} />
+          <Line dataKey="gum" name="GUM normal" stroke="var(--color-ink)" dot={false} strokeWidth={1.5} isAnimationActive={false} />
+          <ReferenceLine x={gl} stroke="var(--color-info)" strokeDasharray="5 3" label={{ value: 'GUM', position: 'top', ...axisStyle }} />
+          <ReferenceLine x={gh} stroke="var(--color-info)" strokeDasharray="5 3" />
+          <ReferenceLine x={ml} stroke="var(--color-ember-strong)" label={{ value: 'MCM', position: 'insideTopLeft', ...axisStyle }} />
+          <ReferenceLine x={mh} stroke="var(--color-ember-strong)" />
+        </ComposedChart>
+      </ResponsiveContainer>
+      <figcaption className="text-xs text-ink-muted">
+        Bars: {formatNumber(result.mcm.trials, { digits: 15 })} Monte Carlo trials (seed {result.mcm.seed}), shaded: their {result.mcm.intervalKind} coverage interval (solid lines). Curve: the GUM normal distribution N(y, u²), dashed lines its interval y ± U.
+      </figcaption>
+    </figure>
+  );
+}
+
+export function ContributionsChart({ result }: { result: EvaluationResult }) {
+  const data = [...result.gum.budget].sort((a, b) => b.contribution - a.contribution).map((b) => ({ symbol: b.symbol, contribution: b.contribution }));
+  const unit = formatUnit(result.unit);
+  return (
+    <figure aria-label="Contributions to the standard uncertainty, largest first">
+      <ResponsiveContainer width="100%" height={Math.max(120, data.length * 24 + 40)}>
+        <BarChart data={data} layout="vertical" margin={{ top: 4, right: 16, bottom: 24, left: 8 }}>
+          <CartesianGrid stroke="var(--color-line)" horizontal={false} />
+          <XAxis type="number" tickFormatter={tick} tick={axisStyle} label={{ value: `|cᵢ| u(xᵢ) / ${unit}`, position: 'insideBottom', offset: -14, ...axisStyle }} />
+          <YAxis type="category" dataKey="symbol" tick={{ ...axisStyle, fontStyle: 'italic' }} width={80} />
+          <Tooltip formatter={(v) => `${tick(Number(v))} ${unit}`} />
+          <Bar dataKey="contribution" fill="var(--color-ember)" isAnimationActive={false} />
+        </BarChart>
+      </ResponsiveContainer>
+    </figure>
+  );
+}
+
+/** Planck's law L_λ(λ, T) around the working wavelength, in W m⁻² sr⁻¹ µm⁻¹ against µm. */
+export function planckSeries(T: number, lambda: number) {
+  const peak = 2.897771955e-3 / T;
+  const hi = Math.max(lambda * 2, peak * 4);
+  const out: Array<{ um: number; L: number }> = [];
+  for (let i = 1; i <= 120; i++) {
+    const l = (hi * i) / 120;
+    out.push({ um: l * 1e6, L: planck(l, T) * 1e-6 });
+  }
+  return out;
+}
+
+export function PlanckChart({ T, lambda }: { T: number; lambda: number }) {
+  const data = planckSeries(T, lambda);
+  return (
+    <figure aria-label="Planck curve at the point's temperature">
+      <ResponsiveContainer width="100%" height={220}>
+        <LineChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
+          <CartesianGrid stroke="var(--color-line)" vertical={false} />
+          <XAxis dataKey="um" type="number" domain={[0, 'dataMax']} tickFormatter={(v) => formatNumber(v, { digits: 3 })} tick={axisStyle} label={{ value: 'wavelength λ / µm', position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <YAxis tickFormatter={tick} tick={axisStyle} width={72} label={{ value: 'L_λ / (W m⁻² sr⁻¹ µm⁻¹)', angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
+          <Tooltip formatter={(v) => tick(Number(v))} labelFormatter={(l) => `${formatNumber(Number(l), { digits: 3 })} µm`} />
+          <Line dataKey="L" stroke="var(--color-ember-strong)" dot={false} isAnimationActive={false} />
+          <ReferenceLine x={lambda * 1e6} stroke="var(--color-info)" strokeDasharray="5 3" label={{ value: `λ = ${formatNumber(lambda * 1e6, { digits: 3 })} µm`, position: 'top', ...axisStyle }} />
+        </LineChart>
+      </ResponsiveContainer>
+      <figcaption className="text-xs text-ink-muted">Spectral radiance of a blackbody at T = {formatNumber(T, { digits: 6 })} K (Planck’s law, exact SI constants); dashed: the working wavelength.</figcaption>
+    </figure>
+  );
+}
+
+/** The measurand with its expanded uncertainty at each calibration point of the job. */
+export function ErrorAcrossJobChart({ points, unit, nominalUnit, label }: { points: Array<{ nominal: number; y: number; U: number }>; unit: string; nominalUnit: string; label: string }) {
+  const data = points.map((p) => ({ ...p, err: p.U }));
+  return (
+    <figure aria-label={`${label} at each calibration point`}>
+      <ResponsiveContainer width="100%" height={220}>
+        <ScatterChart margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
+          <CartesianGrid stroke="var(--color-line)" />
+          <XAxis dataKey="nominal" type="number" domain={['auto', 'auto']} tickFormatter={tick} tick={axisStyle} label={{ value: `calibration point / ${formatUnit(nominalUnit)}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <YAxis dataKey="y" type="number" domain={['auto', 'auto']} tickFormatter={tick} tick={axisStyle} width={72} label={{ value: `${label} / ${formatUnit(unit)}`, angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
+          <ReferenceLine y={0} stroke="var(--color-line-strong)" />
+          <Scatter data={data} fill="var(--color-ember-strong)" isAnimationActive={false}>
+            <ErrorBar dataKey="err" direction="y" width={6} stroke="var(--color-ink)" />
+          </Scatter>
+        </ScatterChart>
+      </ResponsiveContainer>
+      <figcaption className="text-xs text-ink-muted">Bars: ± U at each point.</figcaption>
+    </figure>
+  );
+}
