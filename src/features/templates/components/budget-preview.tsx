@@ -62,6 +62,7 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
   const nuEff = gum.nuEff === 'infinite' ? '∞' : gum.nuEff === null ? 'not applicable (correlated inputs)' : formatNumber(gum.nuEff, { digits: 3 });
   return (
     <div className="space-y-3">
+      <div className="overflow-x-auto">
       <table className="w-full border-collapse text-sm">
         <caption className="sr-only">GUM uncertainty budget at the default values</caption>
         <thead>
@@ -83,7 +84,7 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
             return (
               <tr key={row.symbol} className="border-b border-line align-baseline">
                 <th scope="row" className="py-1 pr-2 text-left font-normal"><Sym name={row.symbol} /></th>
-                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.estimate, u === '1' ? '' : u, { digits: 6 })}</td>
+                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.estimate, u === '1' ? '' : u, row.estimate === 0 ? {} : { digits: 6 })}</td>
                 <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.u, u === '1' ? '' : u, { digits: 3 })}</td>
                 <td className="px-2 text-ink-muted">{DIST_WORDS[row.distribution] ?? row.distribution}</td>
                 <td className="numeric px-2 whitespace-nowrap" title={cUnit}>{n3(row.c)}</td>
@@ -102,6 +103,7 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
           })}
         </tbody>
       </table>
+      </div>
       <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
         <dt><Sym name={ySym} /></dt>
         <dd className="numeric text-left">{formatQuantity(gum.y, unit === '1' ? '' : unit, { digits: 7 })}</dd>

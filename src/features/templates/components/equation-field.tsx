@@ -58,7 +58,7 @@ export function EquationField({
             </pre>
             <p id={`${id}-error`} className="text-sm font-medium text-danger">
               <span aria-hidden="true">✕ </span>
-              At character {issue.position + 1}: {issue.message}
+              At character {issue.position + 1}: {issue.message.replace(/^equation \d+:?\s*/, "")}
             </p>
           </div>
         )}

@@ -88,7 +88,7 @@ export function equationTex(text: string): string | null {
   };
   const a = node as unknown as { type: string; object?: MathNode & { name?: string }; value?: MathNode };
   if (a.type === 'AssignmentNode' && a.object?.type === 'SymbolNode' && a.value) {
-    return `${symbolTex(a.object.name!)} = ${a.value.toTex(options)}`;
+    return `\\displaystyle ${symbolTex(a.object.name!)} = ${a.value.toTex(options)}`;
   }
   return node.toTex(options);
 }

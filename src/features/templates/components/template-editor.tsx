@@ -48,7 +48,7 @@ const errorText = (errors: FieldErrors<FormValues>, path: string): string | unde
 
 function Section({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
   return (
-    <section aria-labelledby={id} className="rounded-card border border-line bg-surface px-5 py-4 shadow-card">
+    <section aria-labelledby={id} className="min-w-0 rounded-card border border-line bg-surface px-5 py-4 shadow-card">
       <div className="mb-3 flex items-baseline justify-between gap-4">
         <h2 id={id} className="text-base font-semibold text-ink">{title}</h2>
         {aside}
@@ -114,6 +114,9 @@ export function useEquationIssues(equations: readonly string[], known: readonly 
   }, [equations, known]);
 }
 
+/** The form's id: a save button outside the form (the page's action bar) submits it with form={…}. */
+export const TEMPLATE_FORM_ID = 'template-form';
+
 export interface TemplateEditorProps {
   definition: TemplateDefinition;
   readOnly: boolean;
@@ -128,17 +131,16 @@ export interface TemplateEditorProps {
 export function TemplateEditor({ definition, readOnly, saving, onSave, onDirtyChange, banner }: TemplateEditorProps) {
   const form = useForm<FormValues, unknown, TemplateDefinition>({
     resolver: zodResolver(templateDefinitionSchema),
-    defaultValues: { ...definition, decisionRule: definition.decisionRule ?? { kind: 'none' }, cmc: definition.cmc ?? { rows: [] } } as FormValues,
+    defaultValues: withFormDefaults(definition),
     mode: 'onChange',
   });
   const { control, register, handleSubmit, formState, setValue, reset } = form;
-  const { errors, isDirty } = formState;
+  const { errors } = formState;
   const [invalidCount, setInvalidCount] = useState(0);
 
   useEffect(() => {
-    reset({ ...definition, decisionRule: definition.decisionRule ?? { kind: 'none' }, cmc: definition.cmc ?? { rows: [] } } as FormValues);
+    reset(withFormDefaults(definition));
   }, [definition, reset]);
-  useEffect(() => onDirtyChange?.(isDirty), [isDirty, onDirtyChange]);
 
   // The schema's passthrough objects defeat react-hook-form's array-path typing: a narrower view.
   const arrays = control as unknown as Control<{ inputs: Array<Record<string, unknown>>; cmc: { rows: Array<Record<string, unknown>> } }>;
@@ -146,6 +148,11 @@ export function TemplateEditor({ definition, readOnly, saving, onSave, onDirtyCh
   const cmcRows = useFieldArray({ control: arrays, name: 'cmc.rows' });
   const values = useWatch({ control }) as FormValues;
   const settled = useDebounced(values, 250);
+  // react-hook-form counts a registered-but-absent optional field (undefined) as a change; compare
+  // the documents as JSON instead, which is what is saved.
+  const baseline = useMemo(() => stableJson(withFormDefaults(definition)), [definition]);
+  const isDirty = useMemo(() => stableJson(values) !== baseline, [values, baseline]);
+  useEffect(() => onDirtyChange?.(isDirty), [isDirty, onDirtyChange]);
 
   const equations = useMemo(() => (settled.equations ?? []) as string[], [settled.equations]);
   const known = useMemo(
@@ -171,14 +178,14 @@ export function TemplateEditor({ definition, readOnly, saving, onSave, onDirtyCh
   );
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Measurement model" className="space-y-4">
+    <form id={TEMPLATE_FORM_ID} onSubmit={submit} noValidate aria-label="Measurement model" className="min-w-0 space-y-4">
       {banner}
       {invalidCount > 0 && (
         <Notice tone="danger" label="The draft was not saved" role="alert">
           {invalidCount === 1 ? 'One field needs attention; it is' : `${invalidCount} fields need attention; they are`} marked below. Everything you typed is still here.
         </Notice>
       )}
-      <fieldset disabled={readOnly} className="space-y-4">
+      <fieldset disabled={readOnly} className="min-w-0 space-y-4">
         <div className="grid gap-4 lg:grid-cols-2">
           <Section title="Model" id="sec-general">
             <div className="space-y-3">
@@ -334,7 +341,7 @@ export function TemplateEditor({ definition, readOnly, saving, onSave, onDirtyCh
           )}
         </Section>
 
-        <Section title="Budget at the defaults (GUM)" id="sec-preview" aside={<span className="text-xs text-ink-muted">JCGM 100 law of propagation, computed in your browser</span>}>
+        <Section title="Budget at the defaults (GUM)" id="sec-preview" aside={<span className="text-xs text-ink-muted">JCGM 100 law of propagation, the same engine that computes stored results</span>}>
           <BudgetPreview definition={previewDefinition} />
         </Section>
 
@@ -422,7 +429,7 @@ export function TemplateEditor({ definition, readOnly, saving, onSave, onDirtyCh
       </fieldset>
 
       {!readOnly && (
-        <div className="sticky bottom-0 -mx-1 flex items-center justify-end gap-3 border-t border-line bg-canvas/95 px-1 py-3">
+        <div className="flex items-center justify-end gap-3 border-t border-line px-1 py-3">
           <span className="text-sm text-ink-muted" role="status">{saving ? 'Saving…' : isDirty ? 'Unsaved changes' : 'All changes saved'}</span>
           <Button type="submit" disabled={saving}>Save draft</Button>
         </div>
@@ -482,6 +489,16 @@ function ReferenceCaseSection({ control, errors, readOnly, present, onAdd, onRem
       )}
     </Section>
   );
+}
+
+/** The form always holds a decision rule and a CMC table (empty ones when the document has none). */
+function withFormDefaults(d: TemplateDefinition): FormValues {
+  return { ...d, decisionRule: d.decisionRule ?? { kind: 'none' }, cmc: d.cmc ?? { rows: [] } } as FormValues;
+}
+
+/** JSON with sorted keys and without undefined members, for comparing documents. */
+function stableJson(v: unknown): string {
+  return JSON.stringify(v, (_k, x) => (x && typeof x === 'object' && !Array.isArray(x) ? Object.fromEntries(Object.keys(x).sort().map((k) => [k, (x as Record<string, unknown>)[k]])) : x));
 }
 
 function CellError({ text }: { text?: string }) {

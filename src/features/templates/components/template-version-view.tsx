@@ -9,7 +9,7 @@ import { useUpdateDraft } from '../api/update-draft';
 import { useNewVersionFrom, useReleaseVersion, useRetireVersion, useValidateVersion } from '../api/version-actions';
 import { ReleaseDialog } from './release-dialog';
 import { StatusText } from './status-text';
-import { TemplateEditor } from './template-editor';
+import { TEMPLATE_FORM_ID, TemplateEditor } from './template-editor';
 import { ValidationReport } from './validation-report';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
@@ -39,7 +39,7 @@ export function TemplateVersionView({ version, canEdit }: { version: TemplateVer
   }
 
   return (
-    <div className="space-y-4">
+    <div className="min-w-0 space-y-4">
       <div className="flex flex-wrap items-start justify-between gap-4">
         <div>
           <p className="text-sm text-ink-muted"><Link to="/app/templates">Measurement models</Link> /</p>
@@ -65,10 +65,13 @@ export function TemplateVersionView({ version, canEdit }: { version: TemplateVer
           <div className="flex flex-wrap gap-2">
             {version.status === 'draft' && (
               <>
+                <Button type="submit" form={TEMPLATE_FORM_ID} variant={dirty ? 'primary' : 'secondary'} disabled={save.isPending}>
+                  {save.isPending ? 'Saving…' : 'Save draft'}
+                </Button>
                 <Button variant="secondary" disabled={dirty || check.isPending} onClick={() => check.mutate()} title={dirty ? 'Save the draft first' : undefined}>
                   {check.isPending ? 'Checking…' : 'Check the model'}
                 </Button>
-                <Button disabled={dirty} onClick={() => setConfirmRelease(true)} title={dirty ? 'Save the draft first' : undefined}>Release…</Button>
+                <Button variant={dirty ? 'secondary' : 'primary'} disabled={dirty} onClick={() => setConfirmRelease(true)} title={dirty ? 'Save the draft first' : undefined}>Release…</Button>
               </>
             )}
             {version.status !== 'draft' && (
