@@ -52,7 +52,7 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
           <tbody>
             {jobs.data?.jobs.map((j) => (
               <tr key={j.id} className="border-b border-line hover:bg-sunken">
-                <td className="py-1.5 pr-3 font-mono"><Link className="font-semibold text-ember-strong underline" to={`/app/jobs/${j.id}`}>{j.number}</Link></td>
+                <td className="whitespace-nowrap py-1.5 pr-3 font-mono"><Link className="font-semibold text-ember-strong underline" to={`/app/jobs/${j.id}`}>{j.number}</Link></td>
                 <td className="py-1.5 pr-3">{j.customer}</td>
                 <td className="py-1.5 pr-3">{j.itemLabel}</td>
                 <td className="py-1.5 pr-3"><JobStatusBadge status={j.status} /></td>

@@ -1,0 +1,41 @@
+// The budget table and unit handling of the budget editor. Expected values: GUM 5.1.2 (linear
+// model y = a + b, so c = 1 and u_c² = Σu²), SI Brochure §2.3.1 (t/°C = T/K − 273.15).
+import { render, screen, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { evaluateGum } from '../../shared/engine';
+import { BudgetTable } from '../../src/features/budgets/components/budget-table';
+import { fromDisplay, toDisplay, unitChoices } from '../../src/features/budgets/components/units';
+
+const doc = {
+  measurand: { symbol: 'y', unit: 'K' },
+  equations: ['y = a + b'],
+  inputs: [
+    { symbol: 'a', unit: 'K', distribution: { type: 'normal' as const, mean: 373.15, sd: 0.3 } },
+    { symbol: 'b', unit: 'K', distribution: { type: 'normal' as const, mean: 0, sd: 0.4 } },
+  ],
+};
+
+describe('budget table', () => {
+  it('shows each input with c, contribution and share as a number and a bar', () => {
+    const result = evaluateGum(doc);
+    render(<BudgetTable result={result} inputs={doc.inputs} />);
+    const table = screen.getByRole('table', { name: 'Uncertainty budget' });
+    const rowB = within(table).getByText('b').closest('tr')!;
+    // share of b = 0.4² / (0.3² + 0.4²) = 0.64
+    expect(rowB.textContent).toContain('64 %');
+    const bar = rowB.querySelector('span.bg-ember') as HTMLElement;
+    expect(parseFloat(bar.style.width)).toBeCloseTo(64, 9);
+    // u_c = 0.5 K
+    expect(table.querySelector('tfoot')!.textContent).toContain('0.500');
+  });
+});
+
+describe('display units', () => {
+  it('offers °C for kelvin inputs and converts positions with the offset, widths without', () => {
+    expect(unitChoices('K')).toContain('°C');
+    expect(toDisplay('mean', 373.15, 'K', '°C')).toBeCloseTo(100, 12);
+    expect(toDisplay('halfWidth', 0.1, 'K', '°C')).toBeCloseTo(0.1, 12);
+    expect(fromDisplay('mean', 8, 'm', 'µm')).toBeCloseTo(8e-6, 18);
+    expect(fromDisplay('k', 2, 'K', '°C')).toBe(2);
+  });
+});
