@@ -26,7 +26,7 @@
  */
 import crypto from 'node:crypto';
 import os from 'node:os';
-import { and, eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, inArray, lt, sql } from 'drizzle-orm';
 import pg from 'pg';
 import PgBoss from 'pg-boss';
 import type { Db } from '../db/client';
@@ -44,6 +44,8 @@ const EXPIRE_SECONDS: Record<TaskKind, number> = { 'monte-carlo': 15 * 60, 'cert
 const PROGRESS_EVERY_MS = 200;
 const RESYNC_EVERY_MS = 2000;
 const FINAL: TaskStatus[] = ['done', 'failed', 'cancelled'];
+/** Finished task rows are deleted after a day (results that matter are stored by the completion hook). */
+const KEEP_FINISHED_MS = 24 * 3600_000;
 
 export type DurableRunnerOptions = {
   connectionString: string;
@@ -76,6 +78,7 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
   let starting: Promise<void> | null = null;
   let stopping = false;
   let resync: NodeJS.Timeout | null = null;
+  let prune: NodeJS.Timeout | null = null;
 
   // --- notifications -------------------------------------------------------------------------
 
@@ -299,6 +302,14 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
     }
     resync = setInterval(() => void refresh([...subscribers.keys()]).catch(() => {}), RESYNC_EVERY_MS);
     resync.unref();
+    const pruneOld = () =>
+      void db
+        .delete(taskRuns)
+        .where(and(inArray(taskRuns.state, FINAL), lt(taskRuns.finishedAt, new Date(Date.now() - KEEP_FINISHED_MS))))
+        .catch((err) => logger.warn('old task rows could not be deleted', { error: err }));
+    pruneOld();
+    prune = setInterval(pruneOld, 3600_000);
+    prune.unref();
     logger.info('durable task queue started', { instanceId, work: opts.work ?? true, concurrency });
   }
 
@@ -410,6 +421,7 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
       if (stopping) return;
       stopping = true;
       if (resync) clearInterval(resync);
+      if (prune) clearInterval(prune);
       const b = boss;
       if (!starting || !b) return;
       await starting.catch(() => {});
