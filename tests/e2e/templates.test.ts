@@ -103,6 +103,7 @@ describe('measurement-model templates in a real browser', () => {
     await page.getByLabel('Tolerance on y (absolute)', { exact: true }).fill('1e-9');
     await page.getByLabel('Tolerance on u (relative)', { exact: true }).fill('1e-6');
 
+    await page.getByLabel('Method statement').fill('Comparison in a stirred bath with a calibrated reference thermometer (e2e).');
     await page.getByRole('button', { name: 'Save draft' }).first().click();
     await expect.poll(() => page.getByText('All changes saved').count(), { timeout: 15_000 }).toBe(1);
     await page.screenshot({ path: screenshotPath('templates-04-draft-saved'), fullPage: true });

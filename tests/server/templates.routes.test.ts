@@ -103,6 +103,14 @@ describe('drafts', () => {
     expect(res.body.version.definition.name).toBe('Spectral irradiance of a lamp (test)');
   });
 
+  it('when a draft made from a name still holds the starter wording, then release is refused naming those fields', async () => {
+    const res = await qm.post('/api/templates').send({ name: 'Starter only (test)' }).expect(201);
+    const refused = await qm.post(`/api/templates/versions/${res.body.version.id}/release`).expect(422);
+    const text = JSON.stringify(refused.body.error.issues);
+    expect(text).toMatch(/method statement is still the starter text/);
+    expect(text).toMatch(/meaning of input \\"x\\" is still the starter text/);
+  });
+
   it('when the body is not a template, then 400 names what is wrong', async () => {
     const bad = { ...simpleDefinition(), inputs: [{ symbol: '1x', description: '', source: 'somewhere', distribution: { type: 'normal', mean: 0 } }] };
     const res = await qm.post('/api/templates').send({ definition: bad }).expect(400);

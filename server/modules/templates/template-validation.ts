@@ -8,6 +8,7 @@
 import { checkEquations, checkUnits, ENGINE_VERSION, EngineError, evaluateGum, type EvaluationResult } from '../../../shared/engine';
 import {
   budgetFromTemplate,
+  starterDefinition,
   templateDefinitionSchema,
   VALIDATION_CHECK_LABELS,
   VALIDATION_CHECKS,
@@ -76,8 +77,17 @@ export function validateTemplate(raw: unknown, meta: ValidationMeta): Validation
     set('schema', parsed.error.issues.map((i) => ({ path: pathOf(i.path), message: `${i.path.length ? pathOf(i.path).join('.') : 'template'}: ${i.message}` })));
     return finish();
   }
-  set('schema', []);
   const t = parsed.data;
+  // A draft made from a name starts with placeholder wording (starterDefinition): release asks for the real text.
+  const starter = starterDefinition(t.name);
+  const placeholders: ValidationMessage[] = [];
+  if (t.certificate.methodStatement === starter.certificate.methodStatement) placeholders.push({ path: ['certificate', 'methodStatement'], message: 'the method statement is still the starter text: write the method as the certificate should state it' });
+  if (t.measurand.description === starter.measurand.description) placeholders.push({ path: ['measurand', 'description'], message: 'the measurand description is still the starter text: describe the measurand' });
+  t.inputs.forEach((i, n) => {
+    if (i.description === starter.inputs[0].description) placeholders.push({ path: ['inputs', n, 'description'], message: `the meaning of input "${i.symbol}" is still the starter text: say what the quantity is` });
+  });
+  set('schema', placeholders);
+  if (placeholders.length) return finish();
 
   // 2 and 3. Equations and symbols (one pass of the allow-list check).
   const known = [...t.inputs.map((i) => i.symbol), ...Object.keys(t.constants ?? {})];

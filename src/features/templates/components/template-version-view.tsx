@@ -114,7 +114,7 @@ export function TemplateVersionView({ version, canEdit }: { version: TemplateVer
           {actionError.message}
         </Notice>
       )}
-      {save.isSuccess && !dirty && !actionError && <p className="text-sm text-ok" role="status">Draft saved.</p>}
+      {save.isSuccess && !dirty && !actionError && version.status === 'draft' && <p className="text-sm text-ok" role="status">Draft saved.</p>}
       {record && <ValidationReport record={record} />}
 
       <TemplateEditor definition={version.definition} readOnly={!editable} saving={save.isPending} onSave={onSave} onDirtyChange={onDirtyChange} />
