@@ -32,7 +32,7 @@ export const SECTIONS: Record<SectionId, Section> = {
   customers: { id: 'customers', path: 'customers', label: 'Customers', roles: ['quality_manager', 'analyst'], viewOnly: ['analyst'] },
   jobs: { id: 'jobs', path: 'jobs', label: 'Calibration jobs', roles: ['analyst'] },
   review: { id: 'review', path: 'review', label: 'Awaiting review', roles: ['signatory'] },
-  certificates: { id: 'certificates', path: 'certificates', label: 'Issued certificates', roles: ['signatory'] },
+  certificates: { id: 'certificates', path: 'certificates', label: 'Issued certificates', roles: ['signatory', 'quality_manager'] },
   'my-certificates': { id: 'my-certificates', path: 'my-certificates', label: 'My certificates', roles: ['customer'] },
 };
 

@@ -18,6 +18,7 @@ import { SectionPage } from './routes/section-page';
 import { SignInPage } from './routes/sign-in';
 import { TemplatesPage, TemplateVersionPage } from './routes/templates-page';
 import { VerifyPage } from './routes/verify';
+import { CertificatesSectionPage, MailboxPage, MailSectionPage, MyCertificatesPage, ReviewJobRoute, ReviewSectionPage } from './routes/certificate-pages';
 import { JobDetailPage, JobsPage, NewJobPage } from './routes/jobs-page';
 import { StandardDetailPage, StandardsPage } from './routes/standards-page';
 import { CustomerPage, CustomersPage } from './routes/customers-page';
@@ -29,15 +30,15 @@ import { SetPasswordPage } from './routes/set-password';
 const SECTION_PAGES: Record<SectionId, ReactNode> = {
   users: <UsersPage />,
   lab: <SectionPage id="lab" />,
-  mail: <SectionPage id="mail" />,
+  mail: <MailSectionPage />,
   audit: <AuditPage />,
   templates: <TemplatesPage />,
   standards: <StandardsPage />,
   customers: <CustomersPage />,
   jobs: <JobsPage />,
-  review: <SectionPage id="review" />,
-  certificates: <SectionPage id="certificates" />,
-  'my-certificates': <SectionPage id="my-certificates" />,
+  review: <ReviewSectionPage />,
+  certificates: <CertificatesSectionPage />,
+  'my-certificates': <MyCertificatesPage />,
 };
 
 /** Guard of /app: the signed-in user, or a redirect to /sign-in that comes back here. */
@@ -104,6 +105,8 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
             { path: 'jobs/:jobId', element: <JobDetailPage /> },
             { path: 'standards/:id', element: <StandardDetailPage /> },
             { path: 'customers/:id', element: <CustomerPage /> },
+            { path: 'review/:jobId', element: <ReviewJobRoute /> },
+            { path: 'mail/mailbox', element: <MailboxPage /> },
             { path: '*', element: <NotFoundPage home="/app" /> },
           ],
         },

@@ -1,0 +1,140 @@
+import { useState } from 'react';
+import { Link } from 'react-router';
+import { Cautions } from '../../../components/ui/cautions';
+import { Notice } from '../../../components/ui/notice';
+import { formatResult } from '../../../../shared/format';
+import { useReview } from '../api/review';
+import { ApproveForm, RejectForm } from './approve-dialog';
+import { CertificatePreview } from './certificate-preview';
+
+type Reported = { method: string; y: number; U: number; k: number | null; note: string | null } | null;
+type Result = {
+  unit: string;
+  gum: { y: number; u: number; U: number; k: number; coverage: number; budget: Array<{ symbol: string; estimate: number; u: number; c: number; contribution: number; share: number; distribution: string }> };
+  mcm: { trials: number; y: number; u: number; interval: [number, number] } | null;
+  validation: { passed: boolean; delta: number; dLow: number; dHigh: number } | null;
+} | null;
+
+const sig = (x: number) => (Number.isFinite(x) ? Number(x.toPrecision(4)).toString() : String(x));
+
+/** One job's review: what the certificate will say, the budgets, the validation and the checks; reject or approve. */
+export function ReviewJobPage({ jobId }: { jobId: string }) {
+  const q = useReview(jobId);
+  const [issued, setIssued] = useState<string | null>(null);
+  const [rejected, setRejected] = useState(false);
+  if (q.isPending) return <p className="text-ink-muted">Loading the job…</p>;
+  if (q.isError) return <Notice tone="danger" label="The job could not be loaded" role="alert">{q.error.message}</Notice>;
+  const d = q.data;
+  const open = d.job.status === 'submitted';
+  return (
+    <div className="space-y-6">
+      <title>{`Review ${d.job.number} · Emberline`}</title>
+      <div>
+        <Link to="/app/review" className="text-sm text-ember-strong underline">
+          Back to the jobs awaiting review
+        </Link>
+        <h1 className="mt-2 text-2xl font-semibold">Review of job {d.job.number}</h1>
+        <p className="mt-1 text-ink-muted">
+          {d.job.customer} · {d.job.itemLabel} · prepared by {d.job.analyst} · model “{d.template.name}”, version {d.template.version} · status: <strong className="text-ink">{d.job.status}</strong>
+        </p>
+      </div>
+      {issued && (
+        <Notice tone="ok" label={`Certificate ${issued} issued`} role="status">
+          The signed PDF is stored and queued for e-mail to the customer’s contacts. <Link className="underline" to="/app/certificates">See the issued certificates</Link>.
+        </Notice>
+      )}
+      {rejected && <Notice tone="info" label="Sent back to the analyst" role="status">The job is a draft again; the analyst sees your comment.</Notice>}
+      {d.amends && (
+        <Notice tone="warn" label={`Amendment of certificate ${d.amends.certificateNumber}`}>
+          Reason: {d.amends.reason}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
+        </Notice>
+      )}
+      <Cautions />
+      {d.blocking.length > 0 && open && (
+        <Notice tone="danger" label="Approval is not possible yet">
+          <ul className="list-disc pl-5">
+            {d.blocking.map((b, i) => (
+              <li key={i}>{b.message}</li>
+            ))}
+          </ul>
+        </Notice>
+      )}
+      {d.checks.notes.length > 0 && (
+        <Notice tone="info" label="Notes from the checks">
+          <ul className="list-disc pl-5">
+            {d.checks.notes.map((n, i) => (
+              <li key={i}>{n.message}</li>
+            ))}
+          </ul>
+        </Notice>
+      )}
+      <section aria-labelledby="budgets-heading" className="space-y-4">
+        <h2 id="budgets-heading" className="text-xl font-semibold">Points, budgets and validation</h2>
+        {d.points.map((p) => {
+          const r = p.result as Result;
+          const rep = p.reported as Reported;
+          return (
+            <div key={p.id} className="rounded-card border border-line bg-surface p-4 text-sm">
+              <h3 className="font-semibold">
+                Point {p.position}: nominal {p.nominal}
+                {p.outsideScope ? ' · outside the scope of accreditation' : ''}
+              </h3>
+              {!r ? (
+                <p className="text-danger">No result yet.</p>
+              ) : (
+                <>
+                  <p className="mt-1 font-mono tabular-nums">
+                    {rep && rep.k !== null ? formatResult(rep.y, rep.U, r.unit, rep.k, r.gum.coverage) : rep ? `${sig(rep.y)} ± ${sig(rep.U)} ${r.unit} (Monte Carlo interval)` : ''}
+                    {' · '}result {p.current ? 'current' : 'out of date'}
+                  </p>
+                  <p className="mt-1">
+                    GUM against Monte Carlo (JCGM 101 §8):{' '}
+                    {r.validation ? (r.validation.passed ? `passed (δ = ${sig(r.validation.delta)}, d_low = ${sig(r.validation.dLow)}, d_high = ${sig(r.validation.dHigh)} ${r.unit})` : 'not passed: the Monte Carlo result is reported') : 'not run'}
+                    {r.mcm ? ` · ${r.mcm.trials.toLocaleString('en-GB').replace(/,/g, '\u2009')} trials` : ''}
+                  </p>
+                  <table className="mt-2 w-full border-collapse">
+                    <caption className="sr-only">Uncertainty budget of point {p.position}</caption>
+                    <thead>
+                      <tr className="border-b border-line-strong text-left">
+                        <th className="py-1 pr-2">Quantity</th>
+                        <th className="py-1 pr-2 text-right">Estimate (SI)</th>
+                        <th className="py-1 pr-2 text-right"><i>u</i>(<i>x</i><sub>i</sub>)</th>
+                        <th className="py-1 pr-2">Distribution</th>
+                        <th className="py-1 pr-2 text-right"><i>c</i><sub>i</sub></th>
+                        <th className="py-1 pr-2 text-right">|<i>c</i><sub>i</sub>| <i>u</i>(<i>x</i><sub>i</sub>)</th>
+                        <th className="py-1 pr-2 text-right">Share</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      {r.gum.budget.map((b) => (
+                        <tr key={b.symbol} className="border-b border-line">
+                          <td className="py-1 pr-2 font-mono">{b.symbol}</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.estimate)}</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.u)}</td>
+                          <td className="py-1 pr-2">{b.distribution}</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.c)}</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{(b.share * 100).toFixed(1)} %</td>
+                        </tr>
+                      ))}
+                    </tbody>
+                  </table>
+                </>
+              )}
+            </div>
+          );
+        })}
+      </section>
+      <section aria-labelledby="preview-heading" className="space-y-2">
+        <h2 id="preview-heading" className="text-xl font-semibold">What the certificate will say</h2>
+        {d.preview ? <CertificatePreview data={d.preview} /> : <p className="text-ink-muted">The certificate cannot be assembled yet: see the points above.</p>}
+      </section>
+      {open && !issued && !rejected && (
+        <div className="grid gap-4 md:grid-cols-2">
+          <ApproveForm jobId={d.job.id} jobNumber={d.job.number} disabled={d.blocking.length > 0} onIssued={setIssued} />
+          <RejectForm jobId={d.job.id} disabled={false} onRejected={() => setRejected(true)} />
+        </div>
+      )}
+    </div>
+  );
+}
