@@ -34,7 +34,7 @@ export interface RunningServer {
   stop(signal?: NodeJS.Signals): Promise<void>;
 }
 
-export async function startServer(opts: { dataDir?: string; env?: Record<string, string> } = {}): Promise<RunningServer> {
+export async function startServer(opts: { dataDir?: string; env?: Record<string, string>; /** How long to wait for /api/health (default 90 s). */ startTimeoutMs?: number } = {}): Promise<RunningServer> {
   const dataDir = opts.dataDir ?? mkdtempSync(join(tmpdir(), 'emberline-e2e-'));
   mkdirSync(dataDir, { recursive: true });
   const port = await freePort();
@@ -48,7 +48,7 @@ export async function startServer(opts: { dataDir?: string; env?: Record<string,
   child.stdout?.on('data', (d) => (log += d));
   child.stderr?.on('data', (d) => (log += d));
   const url = `http://localhost:${port}`;
-  const deadline = Date.now() + 90_000;
+  const deadline = Date.now() + (opts.startTimeoutMs ?? 90_000);
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}:\n${log}`);
     try {

@@ -1,0 +1,116 @@
+/**
+ * Browser test of the analyst's job (issue 5): open a job from a shipped template, upload a CSV of
+ * readings, watch the budget change as a value changes, run 10^6 Monte Carlo trials with a
+ * visible progress bar, see the histogram, and submit for review. Demo data are invented.
+ */
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+
+const CSV = path.resolve('tests/fixtures/readings/e2e-ir-80C.csv');
+
+describe('an analyst carries a job from a template to submission', () => {
+  let server: RunningServer;
+  let browser: Browser;
+  const failed: string[] = [];
+
+  beforeAll(async () => {
+    // Under a loaded machine the first start (migrations, demo seed with template validation) can be slow.
+    server = await startServer({ startTimeoutMs: 300_000 });
+    browser = await openBrowser();
+  }, 360_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+
+  it('creates the job, fills the budget, runs Monte Carlo and submits', async () => {
+    const { page } = browser;
+    page.setDefaultTimeout(30_000);
+    page.on('response', (r) => {
+      if (r.status() >= 400) failed.push(`${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`);
+    });
+    await page.goto(`${server.url}/sign-in`);
+    await page.getByLabel(/e-mail/i).fill('analyst@emberline-demo.test');
+    await page.getByLabel(/password/i).fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: /sign in/i }).click();
+    await page.getByRole('heading', { name: 'Calibration jobs' }).waitFor();
+    await page.screenshot({ path: screenshotPath('10-jobs-list'), fullPage: true });
+
+    await page.getByRole('link', { name: 'New job' }).click();
+    await page.getByRole('combobox', { name: /^Customer/ }).selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
+    await page.getByRole('combobox', { name: /^Item to calibrate/ }).selectOption({ index: 1 });
+    await page.getByRole('combobox', { name: /^Measurement model/ }).selectOption({ label: 'Infrared thermometer against a reference blackbody — version 1' });
+    await page.getByLabel('Received on').fill('2026-11-27');
+    await page.getByLabel('Calibrated on').fill('2026-12-01');
+    await page.getByLabel('Location', { exact: true }).fill('Laboratory room 2');
+    await page.getByLabel('Temperature / °C').fill('23.1');
+    await page.getByLabel('u(temperature) / °C').fill('0.3');
+    await page.getByLabel('Relative humidity / %').fill('41');
+    await page.screenshot({ path: screenshotPath('11-new-job'), fullPage: true });
+    await page.getByRole('button', { name: 'Open the job' }).click();
+    await page.getByRole('heading', { name: /EMB-\d{4}-\d{4}/ }).waitFor();
+
+    await page.getByLabel(/Nominal value/).fill('80');
+    await page.getByRole('button', { name: 'Add point' }).click();
+    await page.getByRole('tab', { name: /Point 1/ }).waitFor();
+
+    // Readings of the instrument from a CSV file.
+    await page.locator('tr[data-input="T_ind"]').getByRole('button', { name: /upload readings/i }).click();
+    await page.getByLabel('Readings file').setInputFiles(CSV);
+    await page.getByRole('button', { name: 'Upload readings', exact: true }).click();
+    await page.getByTestId('typea-T_ind').waitFor();
+    await expect.poll(() => page.getByTestId('typea-T_ind').textContent()).toMatch(/n = 10, mean = 80\.36.*ν = 9/);
+
+    // Values from the reference standards' certificates.
+    await page.locator('tr[data-input="T_ref"]').getByRole('button', { name: /reference standard/i }).click();
+    await page.getByRole('group', { name: /Reference standard for T_ref/ }).locator('li', { hasText: 'PRT-A' }).first().getByRole('button', { name: 'Use', exact: true }).click();
+    await page.locator('tr[data-input="T_ref"]').getByText(/due \d{4}-\d{2}-\d{2}/).waitFor();
+    await page.locator('tr[data-input="eps_bb"]').getByRole('button', { name: /reference standard/i }).click();
+    await page.getByRole('group', { name: /Reference standard for eps_bb/ }).locator('li', { hasText: 'RB-900' }).filter({ hasText: 'emissivity' }).first().getByRole('button', { name: 'Use', exact: true }).click();
+    await page.locator('tr[data-input="eps_bb"]').getByText(/RB-900/).waitFor();
+
+    // The live budget changes as a value changes.
+    const table = page.getByRole('table', { name: 'Uncertainty budget' });
+    await table.waitFor().catch(async (err) => {
+      await page.screenshot({ path: screenshotPath('12-budget-missing'), fullPage: true });
+      throw err;
+    });
+    const sseRow = table.locator('tr[data-symbol="dT_sse"]');
+    const before = await sseRow.textContent();
+    await page.screenshot({ path: screenshotPath('12-budget-filled'), fullPage: true });
+    const halfWidth = page.getByLabel('half-width a of dT_sse');
+    await halfWidth.fill('0.4');
+    await expect.poll(() => sseRow.textContent()).not.toBe(before);
+    await page.screenshot({ path: screenshotPath('13-budget-changed'), fullPage: true });
+    await page.getByRole('button', { name: 'Save and calculate' }).click();
+    await page.getByText(/Saved and calculated/).waitFor();
+
+    // Monte Carlo, 10^6 trials, with progress.
+    await page.getByRole('combobox', { name: /^Trials/ }).selectOption('1000000');
+    await page.getByRole('button', { name: 'Run Monte Carlo' }).click();
+    const bar = page.getByRole('progressbar', { name: 'Monte Carlo progress' });
+    await bar.waitFor();
+    await expect.poll(() => page.getByTestId('mc-progress').textContent()).toMatch(/of 1 000 000 trials/);
+    await page.screenshot({ path: screenshotPath('14-monte-carlo-running'), fullPage: true });
+    await page.getByText(/Monte Carlo finished/).waitFor({ timeout: 120_000 });
+    await page.getByRole('figure', { name: /Monte Carlo histogram/ }).locator('svg').first().waitFor();
+    await page.screenshot({ path: screenshotPath('15-monte-carlo-histogram'), fullPage: true });
+
+    // Submit.
+    await expect.poll(() => page.getByText('✓ Every check passes.').count(), { timeout: 20_000 }).toBe(1);
+    await page.getByRole('button', { name: 'Submit for review' }).click();
+    await page.getByText(/Submitted for review\./).waitFor();
+    await expect.poll(() => page.getByText('Submitted for review', { exact: true }).count()).toBeGreaterThan(0);
+    await page.screenshot({ path: screenshotPath('16-submitted'), fullPage: true });
+  }, 300_000);
+
+  it('made no request outside localhost, had no page errors, and only the signed-out /api/me answered 401', () => {
+    expect(browser.requests.filter((u) => !isLocal(u))).toEqual([]);
+    // Before sign-in the client asks /api/me and gets 401 (the browser logs that as a console error).
+    expect(failed.filter((f) => !/^401 GET \/api\/(me|auth\/get-session)$/.test(f))).toEqual([]);
+    // Failed loads are checked above by response (the console line carries no URL; chromium's own favicon request is one).
+    expect(browser.errors.filter((e) => !/^Failed to load resource/.test(e))).toEqual([]);
+  });
+});
