@@ -34,6 +34,12 @@ export interface EvaluateOptions {
   chunkSize?: number;
   /** Second-order terms of GUM 5.1.2 (default: true up to 50 uncorrelated inputs). */
   secondOrder?: boolean;
+  /**
+   * Generate JavaScript for the model (default true). Browsers under the app's
+   * Content-Security-Policy (no 'unsafe-eval') pass false: the model is then evaluated through
+   * closures with the same arithmetic (model/closures.ts).
+   */
+  codegen?: boolean;
 }
 
 /** Validate `doc` with the budget schema; EngineError('INVALID_DOCUMENT') lists every issue with its path. */
@@ -54,7 +60,7 @@ interface GumStage {
 
 function gumStage(input: unknown, opts: EvaluateOptions): GumStage {
   const doc = parseBudget(input);
-  const model = compileModel(doc);
+  const model = compileModel(doc, { codegen: opts.codegen });
   const summaries = doc.inputs.map((i) => summarizeInput(i));
   const coverage = doc.coverage ?? BUDGET_DEFAULTS.coverage;
   const { gum, warnings, zeroUncertainty } = propagate(doc, model, summaries, { coverage, secondOrder: opts.secondOrder });
@@ -69,7 +75,7 @@ function gumStage(input: unknown, opts: EvaluateOptions): GumStage {
 }
 
 /** GUM only, synchronous and without Monte Carlo (the browser's live budget table). */
-export function evaluateGum(doc: unknown, opts: Pick<EvaluateOptions, 'secondOrder'> = {}): EvaluationResult {
+export function evaluateGum(doc: unknown, opts: Pick<EvaluateOptions, 'secondOrder' | 'codegen'> = {}): EvaluationResult {
   return gumStage(doc, opts).result;
 }
 

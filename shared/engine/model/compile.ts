@@ -8,6 +8,7 @@ import { EngineError } from '../errors';
 import type { CompiledModel } from '../types';
 import { checkEquations, type CheckedEquation } from './check';
 import { bindFunctions, generate, numberLiteral } from './codegen';
+import { closure, isCodeGenerationRefused, type ClosureEnv, type NumberClosure } from './closures';
 import { countNodes, makeInputsOf, prepareForDerivative, type Placeholder } from './expand';
 import type { RadiometricLibrary } from './library-types';
 import { derivative, type MathNode } from './math';
@@ -48,7 +49,26 @@ export function differenceStep(x: number, u: number | undefined, power: 3 | 4 = 
  * Compile `doc`'s model against a radiometric library (./index.ts binds the real one). Throws
  * EngineError on any refused equation or an undefined measurand.
  */
-export function compileModelWith(doc: BudgetDocument, library: RadiometricLibrary): CompiledModelDetails {
+export interface CompileOptions {
+  /**
+   * Generate JavaScript source (default). When false — or when the runtime refuses `new Function`,
+   * as a browser page under a Content-Security-Policy without 'unsafe-eval' does — the same tree
+   * is evaluated through closures (./closures.ts) with the same arithmetic.
+   */
+  codegen?: boolean;
+}
+
+export function compileModelWith(doc: BudgetDocument, library: RadiometricLibrary, options: CompileOptions = {}): CompiledModelDetails {
+  let codegen = options.codegen !== false;
+  const makeFunction = (param: string, source: string): unknown => {
+    if (!codegen) throw new EvalError('code generation disabled');
+    try {
+      return new Function(param, source)(library.functions);
+    } catch (e) {
+      if (isCodeGenerationRefused(e)) codegen = false;
+      throw e;
+    }
+  };
   const inputSymbols = doc.inputs.map((i) => i.symbol);
   const constants = doc.constants ?? {};
   const checked = checkEquations(doc.equations, [...inputSymbols, ...Object.keys(constants)]);
@@ -82,25 +102,35 @@ export function compileModelWith(doc: BudgetDocument, library: RadiometricLibrar
 
   // Value code: one statement per equation, symbols resolved in order of precedence
   // (earlier intermediate > input > document constant > library constant).
-  const locals = new Map<string, string>();
+  type Resolved = { kind: 'local'; k: number } | { kind: 'input'; i: number } | { kind: 'value'; value: number };
+  const locals = new Map<string, number>();
   const usedInputs = new Set<number>();
   const statements: string[] = [];
+  const resolvers: Array<(name: string) => Resolved> = [];
   equations.forEach((eq, k) => {
-    const symbol = (name: string): string => {
-      const local = locals.get(name);
-      if (local) return local;
+    const known = new Map(locals);
+    const resolve = (name: string): Resolved => {
+      const local = known.get(name);
+      if (local !== undefined) return { kind: 'local', k: local };
       const i = inputIndex.get(name);
-      if (i !== undefined) {
-        usedInputs.add(i);
-        return `a${i}`;
-      }
-      if (Object.prototype.hasOwnProperty.call(constants, name)) return numberLiteral(constants[name]);
+      if (i !== undefined) return { kind: 'input', i };
+      if (Object.prototype.hasOwnProperty.call(constants, name)) return { kind: 'value', value: constants[name] };
       const v = libraryValue(name);
-      if (v !== undefined) return numberLiteral(v);
+      if (v !== undefined) return { kind: 'value', value: v };
       throw new EngineError('UNKNOWN_SYMBOL', `equation ${eq.index + 1}: "${name}" has no value`, { equation: eq.index });
     };
+    const symbol = (name: string): string => {
+      const r = resolve(name);
+      if (r.kind === 'local') return `v${r.k}`;
+      if (r.kind === 'input') {
+        usedInputs.add(r.i);
+        return `a${r.i}`;
+      }
+      return numberLiteral(r.value);
+    };
     statements.push(`const v${k} = ${generate(eq.expr, symbol)};`);
-    locals.set(eq.target, `v${k}`);
+    resolvers.push(resolve);
+    locals.set(eq.target, k);
   });
   const last = `v${equations.length - 1}`;
   const readX = [...usedInputs].sort((a, b) => a - b).map((i) => `const a${i} = x[${i}];`).join(' ');
@@ -128,11 +158,51 @@ function kernel(cols, out, n) {
   }
 }
 return { all, measurand, kernel };`;
-  const built = new Function('F', scalarSource)(library.functions) as {
+  type Built = {
     all(x: ArrayLike<number>): number[];
     measurand(x: ArrayLike<number>): number;
     kernel(cols: Float64Array[], out: Float64Array, n: number): void;
   };
+  const fromClosures = (): Built => {
+    const fns = equations.map((eq, k) =>
+      closure(eq.expr, (name): NumberClosure => {
+        const r = resolvers[k](name);
+        if (r.kind === 'local') {
+          const j = r.k;
+          return (e) => e.v[j];
+        }
+        if (r.kind === 'input') {
+          const i = r.i;
+          return (e) => e.x[i];
+        }
+        const c = r.value;
+        return () => c;
+      }, library.functions),
+    );
+    const all = (x: ArrayLike<number>): number[] => {
+      const env: ClosureEnv = { x, v: [], named: {} };
+      for (let k = 0; k < fns.length; k++) env.v[k] = fns[k](env);
+      return env.v;
+    };
+    return {
+      all,
+      measurand: (x) => all(x)[fns.length - 1],
+      kernel(cols, out, n) {
+        const x = new Array<number>(cols.length);
+        for (let t = 0; t < n; t++) {
+          for (let i = 0; i < cols.length; i++) x[i] = cols[i][t];
+          out[t] = all(x)[fns.length - 1];
+        }
+      },
+    };
+  };
+  let built: Built;
+  try {
+    built = makeFunction('F', scalarSource) as Built;
+  } catch (e) {
+    if (codegen) throw e;
+    built = fromClosures();
+  }
 
   const scalar = (x: ArrayLike<number>): number => {
     const y = built.measurand(x);
@@ -178,6 +248,7 @@ return { all, measurand, kernel };`;
     const behindPlaceholder = new Set<string>();
     for (const p of placeholders) for (const s of p.inputs) behindPlaceholder.add(s);
     const lines: string[] = [];
+    const derivatives: Array<{ i: number; tree: MathNode }> = [];
     const symbolJs = (name: string): string => {
       const i = inputIndex.get(name);
       if (i !== undefined) return `a${i}`;
@@ -194,6 +265,7 @@ return { all, measurand, kernel };`;
       try {
         const d = derivative(full as MathNode, s, { simplify: false });
         lines.push(`out[${i}] = ${generate(d, symbolJs)};`);
+        derivatives.push({ i, tree: d });
         method[i] = 'symbolic';
       } catch {
         // mathjs has no rule for this function (min, max, abs at 0 …): central differences.
@@ -215,11 +287,37 @@ return function gradient(x, out) {
   ${lines.join('\n  ')}
 };`;
     try {
-      gradient = new Function('F', gradientSource)(library.functions);
+      gradient = makeFunction('F', gradientSource) as typeof gradient;
     } catch {
-      gradient = null;
-      method.fill('numeric');
+      gradient = codegen ? null : gradientFromClosures(derivatives, placeholders);
+      if (!gradient) method.fill('numeric');
     }
+  }
+
+  function gradientFromClosures(derivs: Array<{ i: number; tree: MathNode }>, phs: Placeholder[]): (x: ArrayLike<number>, out: number[]) => void {
+    const symbolOf = (name: string): NumberClosure => {
+      const i = inputIndex.get(name);
+      if (i !== undefined) return (e) => e.x[i];
+      if (/^__(bp|bq|ba)\d+(?:_\d)?$/.test(name)) return (e) => e.named[name];
+      throw new Error(`unresolved ${name}`);
+    };
+    const band = library.functions.band_radiance;
+    const planck = library.functions.planck;
+    const args = phs.map((p) => p.args.map((a) => closure(a, symbolOf, library.functions)));
+    const outs = derivs.map(({ i, tree }) => ({ i, f: closure(tree, symbolOf, library.functions) }));
+    return (x, out) => {
+      const env: ClosureEnv = { x, v: [], named: {} };
+      args.forEach(([a0, a1, a2], k) => {
+        const A0 = a0(env), A1 = a1(env), A2 = a2(env);
+        env.named[`__ba${k}_0`] = A0;
+        env.named[`__ba${k}_1`] = A1;
+        env.named[`__ba${k}_2`] = A2;
+        env.named[`__bp${k}`] = band(A0, A1, A2);
+        env.named[`__bq${k}_0`] = planck(A0, A2);
+        env.named[`__bq${k}_1`] = planck(A1, A2);
+      });
+      for (const { i, f } of outs) out[i] = f(env);
+    };
   }
 
   const central = (x: ArrayLike<number>, i: number, u: number | undefined): number => {

@@ -64,7 +64,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
     const doc = pointBudget(definition, { inputs: debouncedInputs, correlations: debouncedCorr });
     if (!doc) return { result: null, error: `Fill ${debouncedInputs.filter((i) => i.distribution === null).map((i) => i.symbol).join(', ')} to see the budget.` };
     try {
-      return { result: evaluateGum(doc), error: null };
+      return { result: evaluateGum(doc, { codegen: false }), error: null };
     } catch (err) {
       return { result: null, error: err instanceof EngineError ? err.message : String(err) };
     }

@@ -16,7 +16,7 @@ type Outcome = { result: EvaluationResult } | { error: string } | { blocked: tru
 
 function evaluateSafely(def: TemplateDefinition): Outcome {
   try {
-    return { result: evaluateGum(budgetFromTemplate(def)) };
+    return { result: evaluateGum(budgetFromTemplate(def), { codegen: false }) };
   } catch (e) {
     if (e instanceof EngineError) return { error: e.position !== undefined ? `${e.message} (at character ${e.position + 1})` : e.message };
     // The engine compiles the model to a JavaScript function; a page whose Content Security
