@@ -57,18 +57,21 @@ type Shown = { unit: string; value: (si: number) => number; interval: (si: numbe
 
 const identity: Shown = { unit: '', value: (v) => v, interval: (v) => v };
 
+/** 12 significant digits: hides binary noise of a conversion (353.51 K − 273.15 → 80.36 °C, not 80.3600000000001). */
+const tidy = (x: number) => (Number.isFinite(x) && x !== 0 ? Number(x.toPrecision(12)) : x);
+
 /** The unit a measurand is shown in: a temperature in °C, a spectral quantity per nanometre, otherwise its own unit. */
 export function measurandDisplay(measurand: { unit?: string; description?: string }): Shown {
   const unit = formatUnit(measurand.unit ?? '');
   const description = measurand.description ?? '';
   if (unit === 'K' && /temperature/i.test(description) && !/error|difference|correction|deviation/i.test(description)) {
-    return { unit: '°C', value: (v) => convert(v, 'K', '°C'), interval: (v) => v };
+    return { unit: '°C', value: (v) => tidy(convert(v, 'K', '°C')), interval: (v) => v };
   }
   for (const [si, shown] of [
     ['W m⁻² sr⁻¹ m⁻¹', 'W m⁻² sr⁻¹ nm⁻¹'],
     ['W m⁻² m⁻¹', 'W m⁻² nm⁻¹'],
   ] as const) {
-    if (unit === si) return { unit: shown, value: (v) => convertInterval(v, si, shown), interval: (v) => convertInterval(v, si, shown) };
+    if (unit === si) return { unit: shown, value: (v) => tidy(convertInterval(v, si, shown)), interval: (v) => tidy(convertInterval(v, si, shown)) };
   }
   return { ...identity, unit };
 }
@@ -80,7 +83,7 @@ function inputDisplay(input: PointInput | undefined): { unit: string; estimate: 
   if (shown && si && shown !== si) {
     try {
       const f = convertInterval(1, shown, si); // SI per shown unit, e.g. 1e-6 m per µm
-      return { unit: shown, estimate: (v) => convert(v, si, shown), u: (v) => v / f, c: (v) => v * f };
+      return { unit: shown, estimate: (v) => tidy(convert(v, si, shown)), u: (v) => tidy(v / f), c: (v) => tidy(v * f) };
     } catch {
       /* not convertible: keep SI */
     }
