@@ -7,6 +7,7 @@ import type { AppDeps } from './context';
 import { loadSession } from './auth/require-role';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { registerModules } from './modules';
+import { signInRateLimit } from './security/rate-limit';
 
 export type CreateAppOptions = {
   /** Folder of the built client (dist/client). When missing, `/` answers a short placeholder. */
@@ -43,6 +44,8 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): expres
     }),
   );
 
+  // Failed sign-ins are limited per address before better-auth sees them (server/security).
+  app.post('/api/auth/sign-in/email', signInRateLimit(deps.config.signInRateLimit));
   // better-auth reads the raw body itself: mount it before express.json().
   app.all('/api/auth/{*any}', toNodeHandler(deps.auth));
 

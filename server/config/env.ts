@@ -34,6 +34,20 @@ const port = (name: string, fallback: number) =>
       return n;
     });
 
+const positiveInt = (name: string, fallback: number, max: number) =>
+  z
+    .string()
+    .optional()
+    .transform((v, ctx) => {
+      if (v === undefined || v.trim() === '') return fallback;
+      const n = Number(v);
+      if (!Number.isInteger(n) || n < 1 || n > max) {
+        ctx.addIssue({ code: 'custom', message: `${name} must be a whole number from 1 to ${max}, got "${v}"` });
+        return z.NEVER;
+      }
+      return n;
+    });
+
 const optionalText = z
   .string()
   .optional()
@@ -71,6 +85,8 @@ const envSchema = z.object({
   SIGNING_P12_PATH: optionalText,
   SIGNING_P12_PASSPHRASE: z.string().optional(),
   SEED_DEMO: bool('SEED_DEMO', true),
+  SIGN_IN_RATE_LIMIT: positiveInt('SIGN_IN_RATE_LIMIT', 10, 100_000),
+  SIGN_IN_RATE_WINDOW_MINUTES: positiveInt('SIGN_IN_RATE_WINDOW_MINUTES', 15, 24 * 60),
   TASK_QUEUE: optionalText
     .refine((v) => v === undefined || ['auto', 'in-process', 'pgboss'].includes(v), { message: 'TASK_QUEUE must be auto, in-process or pgboss' })
     .transform((v) => (v ?? 'auto') as 'auto' | 'in-process' | 'pgboss'),
@@ -124,6 +140,8 @@ export type Config = {
   taskQueue: 'auto' | 'in-process' | 'pgboss';
   /** Durable queue: tasks of each kind one instance runs at once (unset: half the cores). */
   taskConcurrency?: number;
+  /** Failed sign-ins allowed per client address and window (server/security/rate-limit.ts). */
+  signInRateLimit: { limit: number; windowMs: number };
   /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
   clockOffsetDays: number;
   /** The lab's own signing P12 (path, passphrase); unset: a self-signed one under dataDir/signing. */
@@ -182,6 +200,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     taskQueue: e.TASK_QUEUE,
     taskConcurrency: e.TASK_CONCURRENCY,
     clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,
+    signInRateLimit: { limit: e.SIGN_IN_RATE_LIMIT, windowMs: e.SIGN_IN_RATE_WINDOW_MINUTES * 60_000 },
     signing: e.SIGNING_P12_PATH ? { p12Path: path.resolve(cwd, e.SIGNING_P12_PATH), passphrase: e.SIGNING_P12_PASSPHRASE ?? '' } : undefined,
   };
 }
