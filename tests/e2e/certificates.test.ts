@@ -79,7 +79,7 @@ describe('approve, e-mail, portal and verification in a real browser', () => {
     await signIn(browser, server.url, 'admin@emberline-demo.test');
     await page.goto(`${server.url}/app/mail/mailbox`);
     const message = page.getByRole('listitem', { name: new RegExp(`m\\.holloway@brightwater-glass\\.example\\.com: Calibration certificate ${number}`) });
-    await expect.poll(async () => { await page.reload(); return message.count(); }, { timeout: 60_000, interval: 2_000 }).toBeGreaterThan(0);
+    await expect.poll(async () => { await page.reload(); return message.count(); }, { timeout: 180_000, interval: 3_000 }).toBeGreaterThan(0);
     await page.screenshot({ path: screenshotPath('cert-05-mailbox'), fullPage: false });
     const [d] = await Promise.all([page.waitForEvent('download'), message.getByRole('link', { name: new RegExp(`${number}\\.pdf`) }).click()]);
     mailed = readFileSync(await d.path());
@@ -87,7 +87,7 @@ describe('approve, e-mail, portal and verification in a real browser', () => {
     await page.goto(`${server.url}/app/mail`);
     await page.getByRole('table', { name: /e-mail log/i }).waitFor();
     await page.screenshot({ path: screenshotPath('cert-06-mail-log'), fullPage: true });
-  }, 120_000);
+  }, 240_000);
 
   it('the customer signs in and downloads the same bytes', async () => {
     const { page } = browser;
