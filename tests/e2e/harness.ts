@@ -48,7 +48,7 @@ export async function startServer(opts: { dataDir?: string; env?: Record<string,
   child.stdout?.on('data', (d) => (log += d));
   child.stderr?.on('data', (d) => (log += d));
   const url = `http://localhost:${port}`;
-  const deadline = Date.now() + (opts.startTimeoutMs ?? 90_000);
+  const deadline = Date.now() + (opts.startTimeoutMs ?? 240_000);
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited with ${child.exitCode}:\n${log}`);
     try {
