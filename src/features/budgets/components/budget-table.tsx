@@ -39,7 +39,7 @@ export function BudgetTable({ result, inputs }: { result: EvaluationResult; inpu
             <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>
             <td className="py-1">
               <div className="flex items-center gap-2">
-                <span className="w-12 text-right">{formatNumber(b.share * 100, { digits: 2 })} %</span>
+                <span className="w-16 whitespace-nowrap text-right">{formatNumber(b.share * 100, { digits: 2, notation: "fixed" })} %</span>
                 <span className="h-2 flex-1 rounded-sm bg-sunken" aria-hidden="true">
                   <span className="block h-2 rounded-sm bg-ember" style={{ width: `${Math.min(100, Math.max(0, b.share * 100))}%` }} />
                 </span>

@@ -38,7 +38,7 @@ export function MonteCarloPanel({ pointId, defaultTrials, disabled, beforeRun, o
       es.addEventListener('done', (e) => {
         const d = JSON.parse((e as MessageEvent).data);
         setProgress({ done: d.result.mcm.trials, target: d.result.mcm.trials, elapsedMs: d.elapsedMs });
-        end('ok', `Monte Carlo finished: ${formatNumber(d.result.mcm.trials, { digits: 15 })} trials in ${formatNumber(d.elapsedMs / 1000, { digits: 3 })} s (seed ${d.result.mcm.seed}). The result is stored with the point.`);
+        end('ok', `Monte Carlo finished: ${formatNumber(d.result.mcm.trials, { decimals: 0, notation: 'fixed' })} trials in ${formatNumber(d.elapsedMs / 1000, { digits: 3 })} s (seed ${d.result.mcm.seed}). The result is stored with the point.`);
         onDone();
       });
       es.addEventListener('cancelled', () => end('warn', 'The run was cancelled; the previous result is unchanged.'));
@@ -60,7 +60,7 @@ export function MonteCarloPanel({ pointId, defaultTrials, disabled, beforeRun, o
           Trials
           <select className="rounded-field border border-line-strong bg-surface px-2 py-1 font-mono" value={trials} onChange={(e) => setTrials(Number(e.target.value))} disabled={Boolean(run)}>
             {[100_000, 1_000_000, 2_000_000, 10_000_000].map((n) => (
-              <option key={n} value={n}>{formatNumber(n, { digits: 15 })}</option>
+              <option key={n} value={n}>{formatNumber(n, { decimals: 0, notation: 'fixed' })}</option>
             ))}
           </select>
         </label>
@@ -76,7 +76,7 @@ export function MonteCarloPanel({ pointId, defaultTrials, disabled, beforeRun, o
             <div className="h-3 bg-ember transition-[width]" style={{ width: `${pct}%` }} />
           </div>
           <p className="mt-1 font-mono text-xs tabular-nums text-ink-muted" data-testid="mc-progress">
-            {formatNumber(progress.done, { digits: 15 })} of {formatNumber(progress.target, { digits: 15 })} trials · {formatNumber(progress.elapsedMs / 1000, { digits: 3, notation: 'fixed' })} s{run ? ` · seed ${run.seed}` : ''}
+            {formatNumber(progress.done, { decimals: 0, notation: 'fixed' })} of {formatNumber(progress.target, { decimals: 0, notation: 'fixed' })} trials · {formatNumber(progress.elapsedMs / 1000, { digits: 3, notation: 'fixed' })} s{run ? ` · seed ${run.seed}` : ''}
           </p>
         </div>
       )}
