@@ -37,12 +37,13 @@ describe('approve, e-mail, portal and verification in a real browser', () => {
   const failed: string[] = [];
 
   beforeAll(async () => {
-    server = await startServer();
+    // The demo seed (jobs with Monte Carlo results, a signed certificate) takes a while on a busy machine.
+    server = await startServer({ startTimeoutMs: 240_000 });
     browser = await openBrowser();
     browser.page.on('response', (r) => {
       if (r.status() >= 400) failed.push(`${r.status()} ${r.url()}`);
     });
-  }, 120_000);
+  }, 300_000);
 
   afterAll(async () => {
     await browser?.close();
