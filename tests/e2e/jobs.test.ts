@@ -92,7 +92,7 @@ describe('an analyst carries a job from a template to submission', () => {
     await page.getByRole('button', { name: 'Run Monte Carlo' }).click();
     const bar = page.getByRole('progressbar', { name: 'Monte Carlo progress' });
     await bar.waitFor();
-    await expect.poll(() => page.getByTestId('mc-progress').textContent()).toMatch(/of 1 000 000 trials/);
+    await expect.poll(() => page.getByTestId('mc-progress').textContent()).toMatch(/of 1\u202f000\u202f000 trials/);
     await page.screenshot({ path: screenshotPath('14-monte-carlo-running'), fullPage: true });
     await page.getByText(/Monte Carlo finished/).waitFor({ timeout: 120_000 });
     await page.getByRole('figure', { name: /Monte Carlo histogram/ }).locator('svg').first().waitFor();
