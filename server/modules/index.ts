@@ -22,18 +22,16 @@ import { createCustomersService } from './customers/customers.service';
 import { createAuditRepository } from './audit/audit.repository';
 import { auditRoutes } from './audit/audit.routes';
 import { calculationsRoutes, runsRoutes } from './calculations/calculations.routes';
-import { createRunRegistry } from './calculations/runs';
 import { createJobsRepository } from './jobs/jobs.repository';
 import { jobsRoutes } from './jobs/jobs.routes';
 import { createJobsService } from './jobs/jobs.service';
 import { createJobSources } from './jobs/sources';
 import { createPointsService } from './points/points.service';
 import { pointsRoutes } from './points/points.routes';
-import { sharedMcmPool } from './calculations/mcm-pool';
+import { createPointRuns } from '../tasks/monte-carlo-runs';
 import { createCertificatesRepository } from './certificates/certificates.repository';
 import { certificatesRoutes } from './certificates/certificates.routes';
 import { createCertificatesService } from './certificates/certificates.service';
-import { certificatePdfPool } from './certificates/pdf-pool';
 import { createReviewService } from './review/review.service';
 import { reviewRoutes } from './review/review.routes';
 import { portalRoutes } from './portal/portal.routes';
@@ -81,7 +79,8 @@ export function registerModules(router: Router, deps: AppDeps): void {
   const jobSources = createJobSources(db, deps.clock);
   const jobs = createJobsService({ db, jobsRepo, sources: jobSources, clock: deps.clock });
   const points = createPointsService({ db, jobsRepo, sources: jobSources, clock: deps.clock });
-  const runs = createRunRegistry({ pool: () => sharedMcmPool(deps), logger: deps.logger });
+  // Monte Carlo runs go through the task runner (in-process pool, or the durable queue shared by instances).
+  const runs = createPointRuns(deps.tasks, points.storeRunResult);
   router.use('/jobs', jobsRoutes(jobs, points, jobSources));
   router.use('/points', pointsRoutes(points, jobs, runs));
   router.use('/calculations', calculationsRoutes());
@@ -91,7 +90,7 @@ export function registerModules(router: Router, deps: AppDeps): void {
   const certificatesRepo = createCertificatesRepository(db);
   const certificates = createCertificatesService({
     db, config: deps.config, clock: deps.clock, logger: deps.logger, outbox: deps.outbox, certificatesRepo, jobs, jobsRepo, labRepo, customersRepo,
-    renderPdf: (data) => certificatePdfPool(deps).renderCertificate(data),
+    renderPdf: (data) => deps.tasks.run('certificate-pdf', data),
   });
   router.use('/review', reviewRoutes(createReviewService({ db, auth: deps.auth, clock: deps.clock, jobs, certificates, certificatesRepo })));
   router.use('/certificates', certificatesRoutes(certificates));

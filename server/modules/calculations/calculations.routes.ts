@@ -4,7 +4,8 @@ import { evaluateGum } from '../../../shared/engine';
 import { requireRole, currentUser } from '../../auth/require-role';
 import { ForbiddenError, NotFoundError } from '../../errors/app-error';
 import { validate } from '../../middleware/validate';
-import type { RunEvent, RunRegistry } from './runs';
+import type { TaskEvent as RunEvent } from '../../tasks/types';
+import type { PointRuns as RunRegistry } from '../../tasks/monte-carlo-runs';
 
 const runParams = z.object({ id: z.uuid({ message: 'not a run id' }) });
 const gumBody = z.object({ budget: z.unknown() }).strict();
@@ -26,8 +27,8 @@ export function calculationsRoutes(): Router {
 export function runsRoutes(runs: RunRegistry): Router {
   const r = Router();
 
-  r.get('/:id/events', requireRole('analyst', 'quality_manager', 'signatory'), validate({ params: runParams }), (req, res) => {
-    const run = runs.get(req.params.id as string);
+  r.get('/:id/events', requireRole('analyst', 'quality_manager', 'signatory'), validate({ params: runParams }), async (req, res) => {
+    const run = await runs.get(req.params.id as string);
     if (!run) throw new NotFoundError('There is no such Monte Carlo run (finished runs are kept for ten minutes).');
     res.status(200);
     res.setHeader('Content-Type', 'text/event-stream; charset=utf-8');
@@ -49,8 +50,8 @@ export function runsRoutes(runs: RunRegistry): Router {
     req.on('close', () => run.events.off('event', send));
   });
 
-  r.delete('/:id', requireRole('analyst'), validate({ params: runParams }), (req, res) => {
-    const run = runs.get(req.params.id as string);
+  r.delete('/:id', requireRole('analyst'), validate({ params: runParams }), async (req, res) => {
+    const run = await runs.get(req.params.id as string);
     if (!run) throw new NotFoundError('There is no such Monte Carlo run.');
     if (run.ownerId !== currentUser(res).id) throw new ForbiddenError('Only the analyst who started this run can cancel it.');
     run.cancel();

@@ -6,7 +6,7 @@ import { symbolSchema } from '../../../shared/schemas/budget.schema';
 import { currentUser, requireRole } from '../../auth/require-role';
 import { AppError } from '../../errors/app-error';
 import { validate } from '../../middleware/validate';
-import type { RunRegistry } from '../calculations/runs';
+import type { PointRuns as RunRegistry } from '../../tasks/monte-carlo-runs';
 import { sendExport } from '../jobs/jobs.routes';
 import type { JobsService } from '../jobs/jobs.service';
 import type { PointsService } from './points.service';
@@ -81,16 +81,17 @@ export function pointsRoutes(points: PointsService, jobs: JobsService, runs: Run
     const pointId = req.params.id as string;
     const body = req.body as z.infer<typeof monteCarloRequestSchema>;
     const { doc, readAt, trials } = await points.budgetForRun(pointId, user);
-    const active = runs.activeFor(pointId);
+    const active = await runs.activeFor(pointId);
     if (active) throw new AppError(409, 'RUN_IN_PROGRESS', 'A Monte Carlo run for this point is already in progress: wait for it or cancel it.');
     const seed = body.seed ?? (await import('node:crypto')).randomInt(0, 2 ** 32 - 1);
-    const run = runs.start({
+    const run = await runs.start({
       pointId,
       ownerId: user.id,
       doc,
       trials: body.trials ?? trials ?? 1_000_000,
       seed,
-      onResult: (result) => points.storeRunResult(pointId, result, readAt, user),
+      readAt,
+      actor: user,
     });
     res.status(202).json({ runId: run.id, trials: run.trials, seed: run.seed });
   });
