@@ -287,12 +287,15 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
     b.on('error', (err) => {
       if (!stopping) logger.warn('task queue error', { error: err });
     });
-    await b.start();
-    boss = b;
-    for (const kind of TASK_KINDS) {
-      await b.createQueue(QUEUE[kind], { name: QUEUE[kind], policy: 'standard', retryLimit: 2, retryDelay: 0, expireInSeconds: EXPIRE_SECONDS[kind] });
+    try {
+      await b.start();
+      await createQueues(b);
+      await listen();
+    } catch (err) {
+      await b.stop({ graceful: false, wait: true, timeout: 2000 }).catch(() => {});
+      throw err;
     }
-    await listen();
+    boss = b;
     if (opts.work ?? true) {
       for (const kind of TASK_KINDS) {
         for (let i = 0; i < concurrency; i++) {
@@ -311,6 +314,23 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
     prune = setInterval(pruneOld, 3600_000);
     prune.unref();
     logger.info('durable task queue started', { instanceId, work: opts.work ?? true, concurrency });
+  }
+
+  /** pg-boss makes a table per queue; instances creating them at once can deadlock, so one at a time. */
+  async function createQueues(b: PgBoss) {
+    const lock = new pg.Client({ connectionString: opts.connectionString, application_name: 'emberline-tasks-setup' });
+    lock.on('error', () => {});
+    await lock.connect();
+    try {
+      await lock.query('SELECT pg_advisory_lock(hashtext($1))', ['emberline:task-queues']);
+      for (const kind of TASK_KINDS) {
+        if (await b.getQueue(QUEUE[kind])) continue;
+        await b.createQueue(QUEUE[kind], { name: QUEUE[kind], policy: 'standard', retryLimit: 2, retryDelay: 0, expireInSeconds: EXPIRE_SECONDS[kind] });
+      }
+    } finally {
+      await lock.query('SELECT pg_advisory_unlock(hashtext($1))', ['emberline:task-queues']).catch(() => {});
+      await lock.end().catch(() => {});
+    }
   }
 
   function ensureStarted(): Promise<void> {
@@ -422,11 +442,9 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
       stopping = true;
       if (resync) clearInterval(resync);
       if (prune) clearInterval(prune);
-      const b = boss;
-      if (!starting || !b) return;
-      await starting.catch(() => {});
+      await starting?.catch(() => {});
       for (const stopJob of running.values()) stopJob();
-      await b.stop({ graceful: true, wait: true, timeout: 8_000 });
+      await boss?.stop({ graceful: true, wait: true, timeout: 8_000 });
       await listener?.end().catch(() => {});
       listener = null;
     },
