@@ -53,7 +53,11 @@ describe('app shell', () => {
   });
 
   it('shows an empty state that says what the section will list', async () => {
-    mockFetch({ 'GET /api/me': () => json(200, meFor('analyst')) });
+    mockFetch({
+      'GET /api/me': () => json(200, meFor('analyst')),
+      'GET /api/jobs': () => json(200, { jobs: [], total: 0, page: 1, pageSize: 25 }),
+      'GET /api/customers': () => json(200, { customers: [] }),
+    });
     renderApp('/app/jobs');
     const empty = await screen.findByRole('region', { name: 'No calibration jobs listed' });
     expect(empty.textContent).toMatch(/customer, item, model version/);

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import { JOB_STATUSES, JOB_STATUS_LABELS } from '../../../../shared/schemas/jobs.schema';
 import { buttonClasses } from '../../../components/ui/button';
+import { EmptyState } from '../../../components/ui/empty-state';
 import { useCustomers, useJobs } from '../api/jobs';
 import { JobStatusBadge } from './job-status';
 
@@ -39,11 +40,17 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
       </div>
       {jobs.error && <p className="text-danger">The jobs could not be loaded: {jobs.error.message}</p>}
       {jobs.data && jobs.data.jobs.length === 0 ? (
-        <p className="rounded-card border border-dashed border-line-strong p-6 text-ink-muted">
-          {q || status || customerId ? 'No job matches these filters.' : 'No calibration jobs yet. Open one with “New job”: choose the customer, the item and a released measurement model.'}
-        </p>
+        q || status || customerId ? (
+          <EmptyState title="No job matches these filters">
+            <p>Clear the search, the status or the customer to see every job.</p>
+          </EmptyState>
+        ) : (
+          <EmptyState title="No calibration jobs listed">
+            <p>Each job lists its customer, item, model version, status and calibration points. Open one with “New job”: choose the customer, the item and a released measurement model.</p>
+          </EmptyState>
+        )
       ) : (
-        <table className="w-full border-collapse text-sm">
+        <table aria-label="Calibration jobs" className="w-full border-collapse text-sm">
           <thead>
             <tr className="border-b border-line-strong text-left text-xs uppercase tracking-wide text-ink-muted">
               <th className="py-2 pr-3">Job</th><th className="py-2 pr-3">Customer</th><th className="py-2 pr-3">Item</th><th className="py-2 pr-3">Status</th><th className="py-2 pr-3 text-right">Points</th><th className="py-2 pr-3">Calibrated</th><th className="py-2">Analyst</th>
