@@ -80,7 +80,13 @@ describe('approve, e-mail, portal and verification in a real browser', () => {
     await signIn(browser, server.url, 'admin@emberline-demo.test');
     await page.goto(`${server.url}/app/mail/mailbox`);
     const message = page.getByRole('listitem', { name: new RegExp(`m\\.holloway@brightwater-glass\\.example\\.com: Calibration certificate ${number}`) });
-    await expect.poll(async () => { await page.reload(); return message.count(); }, { timeout: 180_000, interval: 3_000 }).toBeGreaterThan(0);
+    try {
+      await expect.poll(async () => { await page.reload(); return message.count(); }, { timeout: 180_000, interval: 3_000 }).toBeGreaterThan(0);
+    } catch (err) {
+      // Say what the page, the mailbox and the outbox held, so a failure in CI explains itself.
+      const state = async (path: string) => { const r = await page.request.get(`${server.url}${path}`); return `${r.status()} ${(await r.text()).slice(0, 1500)}`; };
+      throw new Error(`no mail for ${number} in the local mailbox after 180 s; page at ${page.url()}\nmailbox: ${await state('/api/mail/mailbox')}\noutbox: ${await state('/api/mail/outbox')}\nserver log:\n${server.output().slice(-3000)}`, { cause: err });
+    }
     await page.screenshot({ path: screenshotPath('cert-05-mailbox'), fullPage: false });
     const [d] = await Promise.all([page.waitForEvent('download'), message.getByRole('link', { name: new RegExp(`${number}\\.pdf`) }).click()]);
     mailed = readFileSync(await d.path());

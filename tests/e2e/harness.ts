@@ -4,7 +4,7 @@
  * request the page makes is recorded so a test can assert that nothing leaves localhost.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, mkdirSync, rmSync } from 'node:fs';
+import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -67,6 +67,9 @@ export async function startServer(opts: { dataDir?: string; env?: Record<string,
     process: child,
     output: () => log,
     async stop(signal: NodeJS.Signals = 'SIGTERM') {
+      // Keep the server's own log beside the screenshots, for reading after a failure.
+      mkdirSync('test-results/logs', { recursive: true });
+      writeFileSync(join('test-results/logs', `server-${port}.log`), log);
       if (child.exitCode !== null) return;
       const exited = new Promise((r) => child.once('exit', r));
       child.kill(signal);
@@ -98,7 +101,8 @@ export async function openBrowser(): Promise<Browser> {
   context.on('request', (r) => requests.push(r.url()));
   const page = context.pages()[0] ?? (await context.newPage());
   page.on('console', (m) => {
-    if (m.type() === 'error') errors.push(m.text());
+    // The location names the resource behind a "Failed to load resource" message.
+    if (m.type() === 'error') errors.push(`${m.text()} [${m.location().url}]`);
   });
   page.on('pageerror', (e) => errors.push(String(e)));
   return {
