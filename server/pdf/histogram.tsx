@@ -7,7 +7,7 @@
 import { G, Line, Path, Rect, Svg, Text as SvgText } from '@react-pdf/renderer';
 import type { CertificateAnnex } from '../../shared/schemas/certificate.schema';
 import { SANS } from './fonts';
-import { num } from './format';
+import { axisTicks } from '../../shared/format/ticks';
 import { palette } from './theme';
 
 export interface HistogramProps {
@@ -17,19 +17,6 @@ export interface HistogramProps {
   unit: string;
   width?: number;
   height?: number;
-}
-
-/** Tick positions at 1, 2 or 5 × 10ⁿ covering [lo, hi] with about `target` ticks. */
-export function niceTicks(lo: number, hi: number, target = 5): number[] {
-  const span = hi - lo;
-  if (!(span > 0)) return [lo];
-  const raw = span / target;
-  const mag = 10 ** Math.floor(Math.log10(raw));
-  const step = [1, 2, 2.5, 5, 10].map((f) => f * mag).find((s) => span / s <= target + 1) ?? 10 * mag;
-  const first = Math.ceil(lo / step - 1e-9) * step;
-  const ticks: number[] = [];
-  for (let v = first; v <= hi + step * 1e-9; v += step) ticks.push(Math.abs(v) < step * 1e-9 ? 0 : Number(v.toPrecision(12)));
-  return ticks;
 }
 
 export function McmHistogram({ annex, symbol, unit, width = 250, height = 150 }: HistogramProps) {
@@ -63,8 +50,10 @@ export function McmHistogram({ annex, symbol, unit, width = 250, height = 150 }:
       curve += `${i === 0 ? 'M' : 'L'}${sx(x).toFixed(2)},${sy(d).toFixed(2)} `;
     }
   }
-  const xTicks = niceTicks(x0, x1, 5);
-  const yTicks = niceTicks(0, yMax, 4);
+  const xAxis = axisTicks(x0, x1, 5);
+  const yAxis = axisTicks(0, yMax, 4);
+  const xTicks = xAxis.values;
+  const yTicks = yAxis.values;
   const font = { fontFamily: SANS, fontSize: 6.5 } as const;
   const marker = (x: number, dashed: boolean, color: string, key: string) => (
     <Line key={key} x1={sx(x)} x2={sx(x)} y1={m.top} y2={m.top + ph} stroke={color} strokeWidth={dashed ? 0.9 : 1.1} strokeDasharray={dashed ? '3 2' : undefined} />
@@ -88,13 +77,13 @@ export function McmHistogram({ annex, symbol, unit, width = 250, height = 150 }:
       {xTicks.map((t) => (
         <G key={`x${t}`}>
           <Line x1={sx(t)} x2={sx(t)} y1={m.top + ph} y2={m.top + ph + 2.5} stroke={palette.ink} strokeWidth={0.5} />
-          <SvgText x={sx(t)} y={m.top + ph + 10} textAnchor="middle" style={font} fill={palette.ink}>{num(t)}</SvgText>
+          <SvgText x={sx(t)} y={m.top + ph + 10} textAnchor="middle" style={font} fill={palette.ink}>{xAxis.label(t)}</SvgText>
         </G>
       ))}
       {yTicks.map((t) => (
         <G key={`y${t}`}>
           <Line x1={m.left - 2.5} x2={m.left} y1={sy(t)} y2={sy(t)} stroke={palette.ink} strokeWidth={0.5} />
-          <SvgText x={m.left - 4} y={sy(t) + 2.2} textAnchor="end" style={font} fill={palette.ink}>{num(t)}</SvgText>
+          <SvgText x={m.left - 4} y={sy(t) + 2.2} textAnchor="end" style={font} fill={palette.ink}>{yAxis.label(t)}</SvgText>
         </G>
       ))}
       <SvgText x={m.left + pw / 2 - 1.5} y={height - 4} textAnchor="end" style={{ ...font, fontSize: 7, fontStyle: 'italic' }} fill={palette.ink}>{symbol}</SvgText>

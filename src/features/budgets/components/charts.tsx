@@ -6,9 +6,16 @@ import { Bar, BarChart, CartesianGrid, ComposedChart, ErrorBar, Line, LineChart,
 import type { EvaluationResult } from '../../../../shared/engine';
 import { planck } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
+import { axisTicks } from '../../../../shared/format/ticks';
 import { formatUnit } from '../../../../shared/format/units';
 
+/** Tooltip values: four significant digits. */
 const tick = (v: number) => formatNumber(v, { digits: 4 });
+/** An axis from lo to hi with round ticks, all labelled with the same decimals. */
+function axis(lo: number, hi: number, count = 5) {
+  const t = axisTicks(lo, hi, count);
+  return { type: 'number' as const, domain: [lo, hi] as [number, number], ticks: t.values, tickFormatter: t.label, allowDataOverflow: true, interval: 0 as const };
+}
 const axisStyle = { fontSize: 11, fill: 'var(--color-ink-muted)' };
 
 /** Histogram bars of the Monte Carlo values as densities, with the GUM normal N(y, u²) at the same points. */
@@ -36,13 +43,16 @@ export function HistogramChart({ result }: { result: EvaluationResult }) {
   const unit = formatUnit(result.unit);
   const [gl, gh] = result.gum.interval;
   const [ml, mh] = result.mcm.interval;
+  const xLo = Math.min(data[0]?.x ?? gl, gl, ml);
+  const xHi = Math.max(data[data.length - 1]?.x ?? gh, gh, mh);
+  const yHi = Math.max(...data.map((d) => Math.max(d.density, d.gum))) * 1.08 || 1;
   return (
     <figure aria-label="Monte Carlo histogram with the GUM normal distribution">
       <ResponsiveContainer width="100%" height={260}>
         <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" vertical={false} />
-          <XAxis dataKey="x" type="number" domain={['dataMin', 'dataMax']} tickFormatter={tick} tick={axisStyle} label={{ value: `${result.measurand} / ${unit}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
-          <YAxis tickFormatter={tick} tick={axisStyle} label={{ value: `probability density / ${unit}⁻¹`, angle: -90, position: 'insideLeft', offset: 0, style: { ...axisStyle, textAnchor: 'middle' } }} width={72} />
+          <XAxis dataKey="x" {...axis(xLo, xHi, 6)} tick={axisStyle} label={{ value: `${result.measurand} / ${unit}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <YAxis {...axis(0, yHi, 4)} tick={axisStyle} label={{ value: `probability density / ${unit}⁻¹`, angle: -90, position: 'insideLeft', offset: 0, style: { ...axisStyle, textAnchor: 'middle' } }} width={72} />
           <Tooltip formatter={(v) => tick(Number(v))} labelFormatter={(l) => `${tick(Number(l))} ${unit}`} />
           <ReferenceArea x1={ml} x2={mh} fill="var(--color-ember-soft)" fillOpacity={0.5} />
           <Bar dataKey="density" name="Monte Carlo" fill="var(--color-ember)" fillOpacity={0.65} isAnimationActive={false} barSize={6} />
@@ -63,12 +73,13 @@ export function HistogramChart({ result }: { result: EvaluationResult }) {
 export function ContributionsChart({ result }: { result: EvaluationResult }) {
   const data = [...result.gum.budget].sort((a, b) => b.contribution - a.contribution).map((b) => ({ symbol: b.symbol, contribution: b.contribution }));
   const unit = formatUnit(result.unit);
+  const cMax = Math.max(...data.map((d) => d.contribution)) * 1.05 || 1;
   return (
     <figure aria-label="Contributions to the standard uncertainty, largest first">
       <ResponsiveContainer width="100%" height={Math.max(120, data.length * 24 + 40)}>
         <BarChart data={data} layout="vertical" margin={{ top: 4, right: 16, bottom: 24, left: 8 }}>
           <CartesianGrid stroke="var(--color-line)" horizontal={false} />
-          <XAxis type="number" tickFormatter={tick} tick={axisStyle} label={{ value: `|cᵢ| u(xᵢ) / ${unit}`, position: 'insideBottom', offset: -14, ...axisStyle }} />
+          <XAxis {...axis(0, cMax, 4)} tick={axisStyle} label={{ value: `|cᵢ| u(xᵢ) / ${unit}`, position: 'insideBottom', offset: -14, ...axisStyle }} />
           <YAxis type="category" dataKey="symbol" tick={{ ...axisStyle, fontStyle: 'italic' }} width={80} />
           <Tooltip formatter={(v) => `${tick(Number(v))} ${unit}`} />
           <Bar dataKey="contribution" fill="var(--color-ember)" isAnimationActive={false} />
@@ -92,13 +103,15 @@ export function planckSeries(T: number, lambda: number) {
 
 export function PlanckChart({ T, lambda }: { T: number; lambda: number }) {
   const data = planckSeries(T, lambda);
+  const umHi = data[data.length - 1]!.um;
+  const lHi = Math.max(...data.map((d) => d.L)) * 1.05;
   return (
     <figure aria-label="Planck curve at the point's temperature">
       <ResponsiveContainer width="100%" height={220}>
         <LineChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" vertical={false} />
-          <XAxis dataKey="um" type="number" domain={[0, 'dataMax']} tickFormatter={(v) => formatNumber(v, { digits: 3 })} tick={axisStyle} label={{ value: 'wavelength λ / µm', position: 'insideBottom', offset: -16, ...axisStyle }} />
-          <YAxis tickFormatter={tick} tick={axisStyle} width={72} label={{ value: 'L_λ / (W m⁻² sr⁻¹ µm⁻¹)', angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
+          <XAxis dataKey="um" {...axis(0, umHi, 6)} tick={axisStyle} label={{ value: 'wavelength λ / µm', position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <YAxis {...axis(0, lHi, 4)} tick={axisStyle} width={72} label={{ value: 'L_λ / (W m⁻² sr⁻¹ µm⁻¹)', angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
           <Tooltip formatter={(v) => tick(Number(v))} labelFormatter={(l) => `${formatNumber(Number(l), { digits: 3 })} µm`} />
           <Line dataKey="L" stroke="var(--color-ember-strong)" dot={false} isAnimationActive={false} />
           <ReferenceLine x={lambda * 1e6} stroke="var(--color-info)" strokeDasharray="5 3" label={{ value: `λ = ${formatNumber(lambda * 1e6, { digits: 3 })} µm`, position: 'top', ...axisStyle }} />
@@ -112,13 +125,19 @@ export function PlanckChart({ T, lambda }: { T: number; lambda: number }) {
 /** The measurand with its expanded uncertainty at each calibration point of the job. */
 export function ErrorAcrossJobChart({ points, unit, nominalUnit, label }: { points: Array<{ nominal: number; y: number; U: number }>; unit: string; nominalUnit: string; label: string }) {
   const data = points.map((p) => ({ ...p, err: p.U }));
+  const nLo = Math.min(...points.map((p) => p.nominal));
+  const nHi = Math.max(...points.map((p) => p.nominal));
+  const nPad = (nHi - nLo) * 0.08 || Math.abs(nLo) * 0.1 || 1;
+  const yLo = Math.min(0, ...points.map((p) => p.y - p.U));
+  const yHi = Math.max(0, ...points.map((p) => p.y + p.U));
+  const yPad = (yHi - yLo) * 0.08 || 1;
   return (
     <figure aria-label={`${label} at each calibration point`}>
       <ResponsiveContainer width="100%" height={220}>
         <ScatterChart margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" />
-          <XAxis dataKey="nominal" type="number" domain={['auto', 'auto']} tickFormatter={tick} tick={axisStyle} label={{ value: `calibration point / ${formatUnit(nominalUnit)}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
-          <YAxis dataKey="y" type="number" domain={['auto', 'auto']} tickFormatter={tick} tick={axisStyle} width={72} label={{ value: `${label} / ${formatUnit(unit)}`, angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
+          <XAxis dataKey="nominal" {...axis(nLo - nPad, nHi + nPad, 5)} tick={axisStyle} label={{ value: `calibration point / ${formatUnit(nominalUnit)}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <YAxis dataKey="y" {...axis(yLo - yPad, yHi + yPad, 5)} tick={axisStyle} width={72} label={{ value: `${label} / ${formatUnit(unit)}`, angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
           <ReferenceLine y={0} stroke="var(--color-line-strong)" />
           <Scatter data={data} fill="var(--color-ember-strong)" isAnimationActive={false}>
             <ErrorBar dataKey="err" direction="y" width={6} stroke="var(--color-ink)" />
