@@ -179,6 +179,8 @@ function Result({ point: p }: { point: CertificateResultPoint }) {
 
 /** An environmental condition as "23.1 ± 0.5 °C": U to at most two significant digits, the value to its decimal place. */
 function condition(c: { value: number; U: number; unit: string }): string {
+  // No uncertainty recorded for the condition: the value alone, not "± 0".
+  if (!(c.U > 0)) return withUnit(num(c.value), c.unit);
   const U = num(Number(c.U.toPrecision(2)));
   return plusMinus(fixed(c.value, decimalsOf(U)), U, c.unit);
 }

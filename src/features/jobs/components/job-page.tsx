@@ -97,7 +97,7 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
               return (
                 <li key={p.id} className="flex items-center">
                   <button type="button" role="tab" aria-selected={p.id === selected?.id} className={`rounded-l-field border px-3 py-1.5 text-sm ${p.id === selected?.id ? 'border-ember-strong bg-ember-soft font-semibold' : 'border-line-strong bg-surface'}`} onClick={() => setParams({ point: p.id })}>
-                    Point {p.position}: <span className="font-mono">{formatNumber(p.nominalValue, { digits: 6 })} {formatUnit(p.nominalUnit)}</span>
+                    Point {p.position}: <span className="font-mono">{formatNumber(p.nominalValue)} {formatUnit(p.nominalUnit)}</span>
                     {p.reported && <span className="ml-2 font-mono text-xs">{p.result!.reported.value} ± {p.result!.reported.U} {formatUnit(p.result!.unit)}</span>}
                     <span className={`ml-2 text-xs ${n ? 'text-danger' : 'text-ok'}`}>{n ? `${n} to fix` : '✓ ready'}</span>
                   </button>
