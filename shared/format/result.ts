@@ -49,11 +49,18 @@ export function formatCoverageFactor(k: number): string {
  * The unit is formatted for display; pass "" for a dimensionless result.
  */
 export function formatResult(value: number, U: number, unit: string, k: number, p: number): string {
+  return `${formatValueAndU(value, U, unit)} (k = ${formatCoverageFactor(k)}, ${formatCoverageProbability(p)})`;
+}
+
+/**
+ * "773.21 ± 0.14 K": U rounded to two significant digits, the value to its decimal place (GUM
+ * 7.2.6), without the coverage statement (a Monte Carlo interval has no k).
+ */
+export function formatValueAndU(value: number, U: number, unit: string): string {
   const shownUnit = formatUnit(unit);
-  const tail = `(k = ${formatCoverageFactor(k)}, ${formatCoverageProbability(p)})`;
   const unitPart = shownUnit ? ` ${shownUnit}` : '';
   if (!Number.isFinite(value) || !Number.isFinite(U) || U <= 0) {
-    return `${formatNumber(value)} ± ${formatNumber(U)}${unitPart} ${tail}`;
+    return `${formatNumber(value)} ± ${formatNumber(U)}${unitPart}`;
   }
   const { value: Ur, lastDigitExponent } = roundUncertainty(U);
   const magnitude = Math.max(Math.abs(value), Ur);
@@ -64,7 +71,7 @@ export function formatResult(value: number, U: number, unit: string, k: number, 
     const yRounded = lastDigitExponent > 0 ? Math.round(value / 10 ** lastDigitExponent) * 10 ** lastDigitExponent : value;
     const y = formatNumber(yRounded, { decimals, notation: 'fixed' });
     const u = formatNumber(Ur, { decimals, notation: 'fixed' });
-    return `${y} ± ${u}${unitPart} ${tail}`;
+    return `${y} ± ${u}${unitPart}`;
   }
   // Engineering-free shared exponent: the exponent of the larger of |y| and U.
   const exponent = decimalExponent(magnitude);
@@ -72,5 +79,5 @@ export function formatResult(value: number, U: number, unit: string, k: number, 
   const decimals = Math.max(0, exponent - lastDigitExponent);
   const y = formatNumber(value / scale, { decimals, notation: 'fixed' });
   const u = formatNumber(Ur / scale, { decimals, notation: 'fixed' });
-  return `(${y} ± ${u}) ${TIMES} ${powerOfTen(exponent)}${unitPart} ${tail}`;
+  return `(${y} ± ${u}) ${TIMES} ${powerOfTen(exponent)}${unitPart}`;
 }

@@ -2,7 +2,7 @@
 // §7.2.6 (U to at most two significant digits, the value to the same decimal place);
 // EA-4/02 M:2022 §5 (round up when normal rounding lowers U by more than 5 %).
 import { describe, expect, it } from 'vitest';
-import { formatCoverageProbability, formatResult, MINUS, roundUncertainty } from '../../../shared/format';
+import { formatCoverageProbability, formatResult, formatValueAndU, MINUS, roundUncertainty } from '../../../shared/format';
 
 describe('roundUncertainty', () => {
   it('keeps two significant digits', () => {
@@ -47,5 +47,13 @@ describe('formatResult', () => {
   });
   it('omits the unit of a dimensionless result', () => {
     expect(formatResult(0.953, 0.012, '', 2, 0.9545)).toBe('0.953 ± 0.012 (k = 2.00, p ≈ 95 %)');
+  });
+});
+
+describe('formatValueAndU (a Monte Carlo interval has no k)', () => {
+  // GUM (JCGM 100:2008) 7.2.6: U to at most two significant digits, the value to the same place.
+  it('rounds as formatResult does, without the coverage statement', () => {
+    expect(formatValueAndU(0.43012, 0.7761, 'K')).toBe('0.43 ± 0.78 K');
+    expect(formatResult(0.43012, 0.7761, 'K', 2, 0.9545)).toBe(`${formatValueAndU(0.43012, 0.7761, 'K')} (k = 2.00, p ≈ 95 %)`);
   });
 });

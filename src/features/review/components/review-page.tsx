@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import { Cautions } from '../../../components/ui/cautions';
 import { Notice } from '../../../components/ui/notice';
-import { formatResult } from '../../../../shared/format';
+import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU } from '../../../../shared/format';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
 import { CertificatePreview } from './certificate-preview';
@@ -15,7 +15,8 @@ type Result = {
   validation: { passed: boolean; delta: number; dLow: number; dHigh: number } | null;
 } | null;
 
-const sig = (x: number) => (Number.isFinite(x) ? Number(x.toPrecision(4)).toString() : String(x));
+/** Budget figures: four significant digits, × 10ⁿ outside 10⁻³ … 10⁶, U+2212 for negatives. */
+const sig = (x: number) => formatNumber(x, { digits: 4 });
 
 /** One job's review: what the certificate will say, the budgets, the validation and the checks; reject or approve. */
 export function ReviewJobPage({ jobId }: { jobId: string }) {
@@ -84,13 +85,13 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
               ) : (
                 <>
                   <p className="mt-1 font-mono tabular-nums">
-                    {rep && rep.k !== null ? formatResult(rep.y, rep.U, r.unit, rep.k, r.gum.coverage) : rep ? `${sig(rep.y)} ± ${sig(rep.U)} ${r.unit} (Monte Carlo interval)` : ''}
+                    {rep && rep.k !== null ? formatResult(rep.y, rep.U, r.unit, rep.k, r.gum.coverage) : rep ? `${formatValueAndU(rep.y, rep.U, r.unit)} (Monte Carlo interval, ${formatCoverageProbability(r.gum.coverage)})` : ''}
                     {' · '}result {p.current ? 'current' : 'out of date'}
                   </p>
                   <p className="mt-1">
                     GUM against Monte Carlo (JCGM 101 §8):{' '}
-                    {r.validation ? (r.validation.passed ? `passed (δ = ${sig(r.validation.delta)}, d_low = ${sig(r.validation.dLow)}, d_high = ${sig(r.validation.dHigh)} ${r.unit})` : 'not passed: the Monte Carlo result is reported') : 'not run'}
-                    {r.mcm ? ` · ${r.mcm.trials.toLocaleString('en-GB').replace(/,/g, '\u2009')} trials` : ''}
+                    {r.validation ? (r.validation.passed ? `passed (δ = ${sig(r.validation.delta)}, d_low = ${sig(r.validation.dLow)}, d_high = ${sig(r.validation.dHigh)} ${formatUnit(r.unit)})` : 'not passed: the Monte Carlo result is reported') : 'not run'}
+                    {r.mcm ? ` · ${formatNumber(r.mcm.trials, { decimals: 0, notation: 'fixed' })} trials` : ''}
                   </p>
                   <table className="mt-2 w-full border-collapse">
                     <caption className="sr-only">Uncertainty budget of point {p.position}</caption>
@@ -114,7 +115,7 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                           <td className="py-1 pr-2">{b.distribution}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.c)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>
-                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{(b.share * 100).toFixed(1)} %</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{formatNumber(b.share * 100, { decimals: 1, notation: 'fixed' })} %</td>
                         </tr>
                       ))}
                     </tbody>
