@@ -67,9 +67,9 @@ export function CertificateList({ canAmend }: { canAmend: boolean }) {
         <tbody>
           {q.data.map((c) => (
             <tr key={c.id} className="border-b border-line align-top">
-              <td className="py-2 pr-3 font-semibold">
+              <td className="whitespace-nowrap py-2 pr-3 font-semibold">
                 {c.number}
-                {c.amends && <div className="text-xs font-normal text-ink-muted">Replaces {c.amends}: {c.amendReason}</div>}
+                {c.amends && <div className="max-w-64 whitespace-normal text-xs font-normal text-ink-muted">Replaces <span className="whitespace-nowrap">{c.amends}</span>: {c.amendReason}</div>}
               </td>
               <td className="py-2 pr-3">
                 {c.customer}
@@ -100,7 +100,7 @@ export function CertificateList({ canAmend }: { canAmend: boolean }) {
                 )}
               </td>
               <td className="py-2 pr-3">
-                <a className="text-ember-strong underline" href={`/api/certificates/${c.id}/pdf`} download={`${c.number}.pdf`}>
+                <a className="whitespace-nowrap text-ember-strong underline" href={`/api/certificates/${c.id}/pdf`} download={`${c.number}.pdf`}>
                   Download {c.number}.pdf
                 </a>
               </td>

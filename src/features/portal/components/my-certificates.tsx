@@ -30,18 +30,18 @@ export function MyCertificates() {
       <tbody>
         {q.data.map((c) => (
           <tr key={c.id} className="border-b border-line align-top">
-            <td className="py-2 pr-3 font-semibold">
+            <td className="whitespace-nowrap py-2 pr-3 font-semibold">
               {c.number}
               {c.amends && <div className="text-xs font-normal text-ink-muted">Replaces {c.amends}</div>}
             </td>
             <td className="py-2 pr-3">{c.itemLabel}</td>
-            <td className="py-2 pr-3 tabular-nums">{c.issueDate}</td>
-            <td className="py-2 pr-3" data-testid="certificate-status">
+            <td className="whitespace-nowrap py-2 pr-3 tabular-nums">{c.issueDate}</td>
+            <td className="whitespace-nowrap py-2 pr-3" data-testid="certificate-status">
               {certificateStatusText(c)}
               {c.status === 'superseded' && <div className="text-xs text-ink-muted">Use the newer certificate.</div>}
             </td>
             <td className="py-2 pr-3">
-              <a className="text-ember-strong underline" href={`/api/portal/certificates/${c.id}/pdf`} download={`${c.number}.pdf`}>
+              <a className="whitespace-nowrap text-ember-strong underline" href={`/api/portal/certificates/${c.id}/pdf`} download={`${c.number}.pdf`}>
                 Download {c.number}.pdf
               </a>
             </td>
