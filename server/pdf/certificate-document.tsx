@@ -354,8 +354,8 @@ function BudgetTable({ annex, unit }: { annex: CertificateAnnex; unit: string })
         { title: <Text>Estimate <Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 62, num: true, cell: (r) => withUnit(num(r.estimate), r.unit) },
         { title: <Text><Text style={{ fontStyle: 'italic' }}>u</Text>(<Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>)</Text>, width: 58, num: true, cell: (r) => withUnit(num(r.u, 2), r.unit) },
         { title: 'Distribution', width: 52, cell: (r) => r.distribution },
-        { title: <Text><Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 46, num: true, cell: (r) => withUnit(num(r.c, 4), r.cUnit ?? '') },
-        { title: <Text>|<Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>|<Text style={{ fontStyle: 'italic' }}>u</Text>(<Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>)</Text>, width: 54, num: true, cell: (r) => withUnit(num(r.contribution, 2), unit) },
+        { title: <Text><Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 58, num: true, cell: (r) => withUnit(num(r.c, 3), r.cUnit ?? '') },
+        { title: <Text>|<Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>|<Text style={{ fontStyle: 'italic' }}>u</Text>(<Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>)</Text>, width: 60, num: true, cell: (r) => withUnit(num(r.contribution, 2), unit) },
         { title: <Text><Text style={{ fontStyle: 'italic' }}>ν</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 24, num: true, cell: (r) => dof(r.dof) },
         { title: 'Share', width: 36, num: true, cell: (r) => percent(r.share) },
       ]}
@@ -395,7 +395,7 @@ function AnnexPoint({ point, index }: { point: CertificateResultPoint; index: nu
           {mcm ? (
             <>
               <Text style={[s.colLabel, { marginTop: 5 }]}>Monte Carlo (JCGM 101:2008)</Text>
-              <Text>{`${num(mcm.trials)} trials, seed ${mcm.seed}`}</Text>
+              <Text>{`${fixed(mcm.trials, 0)} trials, seed ${mcm.seed}`}</Text>
               <Text><Italic>y</Italic> = {withUnit(num(mcm.y, 4), unit)}; <Italic>u</Italic>(<Italic>y</Italic>) = {withUnit(num(mcm.u, 3), unit)}</Text>
               <Text>{mcm.intervalKind === 'shortest' ? 'Shortest' : 'Probabilistically symmetric'} coverage interval: {interval(mcm.interval)}</Text>
             </>
@@ -425,8 +425,9 @@ function Annex({ data }: { data: CertificateData }) {
   const withAnnex = data.results.map((point, index) => ({ point, index })).filter(({ point }) => point.annex);
   if (withAnnex.length === 0) return null;
   return (
-    <View style={{ marginTop: 14 }}>
-      <Text style={[s.h2, { fontSize: 11 }]} minPresenceAhead={200}>Annex A · Uncertainty budgets and Monte Carlo validation</Text>
+    // The annex starts on a page of its own: its heading was left alone at the foot of page 2.
+    <View break>
+      <Text style={[s.h2, { fontSize: 11 }]}>Annex A · Uncertainty budgets and Monte Carlo validation</Text>
       <Text style={[s.small, { marginBottom: 4 }]}>
         Part of certificate {data.certificateNumber}. Sensitivity coefficients are partial derivatives of the model at the estimates; the share is the part of the combined variance.
       </Text>
