@@ -34,7 +34,7 @@ export function CustomerPage() {
   const section = SECTIONS.customers;
   if (!user.role || !canOpen(section, user.role)) return <ForbiddenPage what={section.label} />;
   if (q.isPending) return <p role="status" className="text-sm text-ink-muted">Loading the customer…</p>;
-  if (q.error) return <Notice tone="danger" label="This customer could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="This customer could not be loaded" role="alert">{q.error.message}</Notice>;
   return (
     <>
       <title>{`${q.data.organisation} · Emberline`}</title>

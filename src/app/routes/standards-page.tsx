@@ -55,7 +55,7 @@ export function StandardDetailPage() {
     );
   }
   if (q.isPending) return <p role="status" className="text-sm text-ink-muted">Loading the standard…</p>;
-  if (q.error) return <Notice tone="danger" label="This standard could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="This standard could not be loaded" role="alert">{q.error.message}</Notice>;
   const s = q.data;
   return (
     <>

@@ -31,7 +31,7 @@ export function TemplateVersionPage() {
   const section = SECTIONS.templates;
   if (!user.role || !canOpen(section, user.role)) return <ForbiddenPage what={section.label} />;
   if (q.isPending) return <p className="text-sm text-ink-muted" role="status">Loading the model…</p>;
-  if (q.error) return <Notice tone="danger" label="This model could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="This model could not be loaded" role="alert">{q.error.message}</Notice>;
   return (
     <>
       <title>{`${q.data.definition.name} v${q.data.version} · Emberline`}</title>

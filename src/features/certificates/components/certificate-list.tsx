@@ -42,7 +42,7 @@ export function CertificateList({ canAmend }: { canAmend: boolean }) {
   const [amending, setAmending] = useState<string | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   if (q.isPending) return <p className="text-ink-muted">Loading the certificates…</p>;
-  if (q.isError) return <Notice tone="danger" label="The certificates could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="The certificates could not be loaded" role="alert">{q.error.message}</Notice>;
   if (q.data.length === 0) {
     return (
       <EmptyState title="No certificate issued yet">

@@ -4,6 +4,7 @@ import { formatNumber } from '../../../../shared/format/number';
 import { formatUnit } from '../../../../shared/format/units';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { ApiError } from '../../../lib/api-client';
 import { BudgetEditor } from '../../budgets/components/budget-editor';
 import { ErrorAcrossJobChart } from '../../budgets/components/charts';
@@ -26,7 +27,10 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
   const [message, setMessage] = useState<{ tone: 'ok' | 'danger'; text: string } | null>(null);
 
   if (job.isPending) return <p className="text-ink-muted">Loading the job…</p>;
-  if (job.error) return <Notice tone="danger" label="Not found">{job.error.message}</Notice>;
+  if (!job.data) {
+    const missing = job.error instanceof ApiError && job.error.status === 404;
+    return <Notice tone="danger" label={missing ? 'There is no such job' : 'The job could not be loaded'} role="alert">{job.error?.message}</Notice>;
+  }
   const { job: j, template, points } = job.data;
   const editable = j.status === 'draft' && j.analystId === userId;
   const selected = points.find((p) => p.id === params.get('point')) ?? points[0];
@@ -53,6 +57,7 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
   return (
     <div className="flex flex-col gap-5">
       <title>{`${j.number} · Emberline`}</title>
+      <RefreshProblem error={job.isError ? job.error : null} onRetry={() => job.refetch()} what="this job" />
       <header className="flex flex-wrap items-start gap-4">
         <div className="mr-auto">
           <h1 className="flex items-center gap-3 text-2xl font-semibold"><span className="font-mono">{j.number}</span> <JobStatusBadge status={j.status} /></h1>

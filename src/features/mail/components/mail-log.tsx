@@ -11,7 +11,7 @@ export function MailLog() {
   const q = useOutbox();
   const resend = useResend();
   if (q.isPending) return <p className="text-ink-muted">Loading the e-mail log…</p>;
-  if (q.isError) return <Notice tone="danger" label="The e-mail log could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="The e-mail log could not be loaded" role="alert">{q.error.message}</Notice>;
   if (q.data.length === 0) {
     return (
       <EmptyState title="No e-mail sent">
@@ -68,7 +68,7 @@ export function MailLog() {
 export function Mailbox() {
   const q = useMailbox(true);
   if (q.isPending) return <p className="text-ink-muted">Loading the local mailbox…</p>;
-  if (q.isError) return <Notice tone="danger" label="The local mailbox could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="The local mailbox could not be loaded" role="alert">{q.error.message}</Notice>;
   if (!q.data.available) return <Notice tone="info" label="No local mailbox">Mail goes to the SMTP server configured with SMTP_HOST; nothing is kept here.</Notice>;
   if (q.data.messages.length === 0) return <EmptyState title="The local mailbox is empty"><p>Messages the built-in test mail server receives appear here.</p></EmptyState>;
   return (

@@ -7,7 +7,7 @@ import { useMyCertificates } from '../api/portal';
 export function MyCertificates() {
   const q = useMyCertificates();
   if (q.isPending) return <p className="text-ink-muted">Loading your certificates…</p>;
-  if (q.isError) return <Notice tone="danger" label="Your certificates could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="Your certificates could not be loaded" role="alert">{q.error.message}</Notice>;
   if (q.data.length === 0) {
     return (
       <EmptyState title="No certificates yet">

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router';
 import { Cautions } from '../../../components/ui/cautions';
 import { Notice } from '../../../components/ui/notice';
+import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU } from '../../../../shared/format';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
@@ -24,11 +25,12 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
   const [issued, setIssued] = useState<string | null>(null);
   const [rejected, setRejected] = useState(false);
   if (q.isPending) return <p className="text-ink-muted">Loading the job…</p>;
-  if (q.isError) return <Notice tone="danger" label="The job could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="The job could not be loaded" role="alert">{q.error.message}</Notice>;
   const d = q.data;
   const open = d.job.status === 'submitted';
   return (
     <div className="space-y-6">
+      <RefreshProblem error={q.isError ? q.error : null} onRetry={() => q.refetch()} what="this job" />
       <title>{`Review ${d.job.number} · Emberline`}</title>
       <div>
         <Link to="/app/review" className="text-sm text-ember-strong underline">

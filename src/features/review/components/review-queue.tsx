@@ -7,7 +7,7 @@ import { useReviewQueue } from '../api/review';
 export function ReviewQueue() {
   const q = useReviewQueue();
   if (q.isPending) return <p className="text-ink-muted">Loading the jobs awaiting review…</p>;
-  if (q.isError) return <Notice tone="danger" label="The queue could not be loaded" role="alert">{q.error.message}</Notice>;
+  if (q.isError && q.data === undefined) return <Notice tone="danger" label="The queue could not be loaded" role="alert">{q.error.message}</Notice>;
   if (q.data.length === 0) {
     return (
       <EmptyState title="Nothing awaits review">
