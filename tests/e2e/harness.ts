@@ -85,6 +85,8 @@ export interface Browser {
   requests: string[];
   /** Console errors and page errors seen. */
   errors: string[];
+  /** Requests that got no answer at all (connection refused or reset, aborted), with the reason. */
+  failedRequests: string[];
   close(): Promise<void>;
 }
 
@@ -98,7 +100,9 @@ export async function openBrowser(): Promise<Browser> {
   });
   const requests: string[] = [];
   const errors: string[] = [];
+  const failedRequests: string[] = [];
   context.on('request', (r) => requests.push(r.url()));
+  context.on('requestfailed', (r) => failedRequests.push(`${new Date().toISOString()} ${r.method()} ${r.url()}: ${r.failure()?.errorText ?? 'failed'}`));
   const page = context.pages()[0] ?? (await context.newPage());
   page.on('console', (m) => {
     // The location names the resource behind a "Failed to load resource" message.
@@ -110,6 +114,7 @@ export async function openBrowser(): Promise<Browser> {
     page,
     requests,
     errors,
+    failedRequests,
     async close() {
       await context.close();
       rmSync(profile, { recursive: true, force: true });

@@ -111,6 +111,8 @@ async function signIn(email: string) {
     if (ctx.task.result?.state === 'fail') {
       broken = true;
       await browser?.page.screenshot({ path: screenshotPath(`flow-failed-${ctx.task.name.slice(0, 2).replace(/\W/g, '')}`), fullPage: true }).catch(() => undefined);
+      // What the browser could not reach and what the server said, so a failure in CI explains itself.
+      console.log(`[whole flow] failed at "${ctx.task.name}" on ${browser?.page.url()}\nrequests without an answer:\n${browser?.failedRequests.join('\n') || '(none)'}\nserver log (end):\n${server?.output().slice(-2500)}`);
     }
   });
 
