@@ -108,7 +108,7 @@ export function PlanckChart({ T, lambda }: { T: number; lambda: number }) {
   return (
     <figure aria-label="Planck curve at the point's temperature">
       <ResponsiveContainer width="100%" height={220}>
-        <LineChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
+        <LineChart data={data} margin={{ top: 22, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" vertical={false} />
           <XAxis dataKey="um" {...axis(0, umHi, 6)} tick={axisStyle} label={{ value: 'wavelength λ / µm', position: 'insideBottom', offset: -16, ...axisStyle }} />
           <YAxis {...axis(0, lHi, 4)} tick={axisStyle} width={72} label={{ value: 'L_λ / (W m⁻² sr⁻¹ µm⁻¹)', angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
