@@ -9,19 +9,9 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, signIn, startServer, type Browser, type RunningServer } from './harness';
 
 const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
-
-async function signIn(browser: Browser, url: string, email: string) {
-  const { page, context } = browser;
-  await context.clearCookies();
-  await page.goto(`${url}/sign-in`);
-  await page.getByLabel(/e-mail/i).fill(email);
-  await page.getByLabel(/password/i).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: /sign in/i }).click();
-  await page.waitForURL(/\/app\//, { timeout: 20_000 });
-}
 
 async function download(page: Page, linkName: RegExp): Promise<Buffer> {
   const [d] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: linkName }).first().click()]);

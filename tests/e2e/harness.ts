@@ -122,6 +122,17 @@ export async function openBrowser(): Promise<Browser> {
   };
 }
 
+/** Signs in through the real sign-in page (cookies cleared first) and waits for the app. */
+export async function signIn(browser: Browser, url: string, email: string, password = DEMO_PASSWORD): Promise<void> {
+  const { page, context } = browser;
+  await context.clearCookies();
+  await page.goto(`${url}/sign-in`);
+  await page.getByLabel(/e-mail/i).fill(email);
+  await page.getByLabel(/password/i).fill(password);
+  await page.getByRole('button', { name: /sign in/i }).click();
+  await page.waitForURL(/\/app\//, { timeout: 30_000 });
+}
+
 /** True when every URL is on this machine (localhost, 127.0.0.0/8, [::1]) or a data:/blob: URL. */
 export function isLocal(url: string): boolean {
   if (url.startsWith('data:') || url.startsWith('blob:') || url.startsWith('about:')) return true;

@@ -6,7 +6,7 @@
  * The header itself is checked in tests/server/security/web.test.ts.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+import { isLocal, openBrowser, screenshotPath, signIn as signInAs, startServer, type Browser, type RunningServer } from './harness';
 
 describe('the Content-Security-Policy holds on every page in a real browser', () => {
   let server: RunningServer;
@@ -29,15 +29,7 @@ describe('the Content-Security-Policy holds on every page in a real browser', ()
     await server?.stop();
   });
 
-  async function signIn(email: string) {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel(/e-mail/i).fill(email);
-    await page.getByLabel(/password/i).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: /sign in/i }).click();
-    await page.waitForURL(/\/app\//, { timeout: 20_000 });
-  }
+  const signIn = (email: string) => signInAs(browser, server.url, email);
 
   /** Lets a page finish its requests and paint (fonts, charts) before the next one. */
   async function settle() {

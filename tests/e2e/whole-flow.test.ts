@@ -14,7 +14,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, signIn as signInAs, startServer, type Browser, type RunningServer } from './harness';
 
 const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 const MODEL = 'Infrared thermometer against a reference blackbody';
@@ -24,6 +24,13 @@ const POINTS = [
   { nominal: '150', csv: 'whole-flow-150C.csv' },
   { nominal: '300', csv: 'whole-flow-300C.csv' },
 ];
+
+async function focusWhenEnabled(page: Page, name: string) {
+  const button = page.getByRole('button', { name, exact: true });
+  await expect.poll(() => button.isEnabled(), { timeout: 30_000 }).toBe(true);
+  await button.focus();
+  await expect.poll(() => page.evaluate(() => document.activeElement?.textContent ?? ''), { timeout: 10_000 }).toBe(name);
+}
 
 describe('the whole job, end to end, as each of its users', () => {
   let server: RunningServer;
@@ -40,22 +47,7 @@ describe('the whole job, end to end, as each of its users', () => {
     await browser.page.screenshot({ path: screenshotPath(`flow-${String(step).padStart(2, '0')}-${name}`), fullPage });
   };
 
-  async function focusWhenEnabled(page: Page, name: string) {
-  const button = page.getByRole('button', { name, exact: true });
-  await expect.poll(() => button.isEnabled(), { timeout: 30_000 }).toBe(true);
-  await button.focus();
-  await expect.poll(() => page.evaluate(() => document.activeElement?.textContent ?? ''), { timeout: 10_000 }).toBe(name);
-}
-
-async function signIn(email: string) {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel(/e-mail/i).fill(email);
-    await page.getByLabel(/password/i).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: /sign in/i }).click();
-    await page.waitForURL(/\/app\//, { timeout: 30_000 });
-  }
+  const signIn = (email: string) => signInAs(browser, server.url, email);
 
   /** Selects point n's tab and waits for its budget. */
   async function openPoint(page: Page, n: number) {
