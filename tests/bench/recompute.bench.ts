@@ -78,9 +78,8 @@ async function main() {
     console.log(`\nthe run was ${stillRunning ? 'still in progress' : 'finished'} after the last timed request (${(busySpan / 1000).toFixed(1)} s of requests); it was then cancelled.`);
     console.log(`median ratio busy/idle: ${(b.median / a.median).toFixed(2)}`);
   } finally {
+    // Closing the app closes its task runner and worker pool too.
     await t.close();
-    const { sharedMcmPoolForShutdown } = await import('../../server/modules/calculations/mcm-pool');
-    await sharedMcmPoolForShutdown();
   }
 }
 
