@@ -49,7 +49,7 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
       {rejected && <Notice tone="info" label="Sent back to the analyst" role="status">The job is a draft again; the analyst sees your comment.</Notice>}
       {d.amends && (
         <Notice tone="warn" label={`Amendment of certificate ${d.amends.certificateNumber}`}>
-          Reason: {d.amends.reason}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
+          Reason: {d.amends.reason.replace(/[.\s]+$/, '')}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
         </Notice>
       )}
       <Cautions />
