@@ -62,6 +62,12 @@ export async function openDatabase(options: OpenDatabaseOptions): Promise<Databa
 
   if (options.databaseUrl) {
     const pool = new pg.Pool({ connectionString: options.databaseUrl, max: 10 });
+    // An idle client whose connection the server ends (restart, pg_terminate_backend: 57P01) is
+    // reported on the pool; without a listener node-postgres would crash the process. The pool
+    // drops that client and opens a new one on the next query.
+    pool.on('error', (err) => {
+      console.warn(`PostgreSQL closed an idle connection: ${err.message}`);
+    });
     const db = drizzlePg({ client: pool, schema });
     try {
       if (shouldMigrate) await withMigrationLock(pool, () => migratePg(db, { migrationsFolder }));
