@@ -147,3 +147,31 @@ describe('compileModel', () => {
     expect(c[1]).toBeCloseTo(0, 8);
   });
 });
+
+describe('compileModel reuse (a budget recomputed with new values keeps its compiled model)', () => {
+  // Design property of the engine (shared/engine/model/index.ts), common practice, no source.
+  it('hands out the same compiled model when only values and distributions change', () => {
+    const a = compileModel(doc(['y = x * k'], ['x'], { constants: { k: 2 } }));
+    const other = doc(['y = x * k'], ['x'], { constants: { k: 2 } });
+    other.inputs[0].distribution = { type: 'rectangular', min: 1, max: 3 };
+    expect(compileModel(other)).toBe(a);
+    expect(a.scalar([5])).toBe(10);
+  });
+
+  it('compiles again when an equation, an input symbol, a constant, the measurand or codegen differ', () => {
+    const a = compileModel(doc(['y = x * k'], ['x'], { constants: { k: 2 } }));
+    const b = compileModel(doc(['y = x * k'], ['x'], { constants: { k: 3 } }));
+    expect(b).not.toBe(a);
+    expect(b.scalar([5])).toBe(15);
+    expect(compileModel(doc(['y = x * 2'], ['x']))).not.toBe(a);
+    expect(compileModel(doc(['y = z * k'], ['z'], { constants: { k: 2 } }))).not.toBe(a);
+    expect(compileModel(doc(['y = x * k', 'w = y + 1'], ['x'], { constants: { k: 2 }, measurand: { symbol: 'y' } }))).not.toBe(a);
+    expect(compileModel(doc(['y = x * k'], ['x'], { constants: { k: 2 } }), { codegen: false })).not.toBe(a);
+  });
+
+  it('refuses a refused model every time (a refusal is never kept)', () => {
+    const bad = doc(['y = x + nope'], ['x']);
+    expect(() => compileModel(bad)).toThrow(EngineError);
+    expect(() => compileModel(bad)).toThrow(/nope/);
+  });
+});
