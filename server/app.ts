@@ -7,6 +7,7 @@ import type { AppDeps } from './context';
 import { loadSession } from './auth/require-role';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { registerModules } from './modules';
+import { clientAddressHeader } from './security/client-address';
 import { signInRateLimit } from './security/rate-limit';
 
 export type CreateAppOptions = {
@@ -19,6 +20,7 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): expres
   const app = express();
   const https = deps.config.baseUrl.startsWith('https://');
   app.disable('x-powered-by');
+  app.set('trust proxy', deps.config.trustProxy);
   app.use(
     helmet({
       // Everything is served from this origin; nothing is loaded from outside.
@@ -44,6 +46,8 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): expres
     }),
   );
 
+  // The client's address as Express decides it (TRUST_PROXY), for better-auth too.
+  app.use(clientAddressHeader());
   // Failed sign-ins are limited per address before better-auth sees them (server/security).
   app.post('/api/auth/sign-in/email', signInRateLimit(deps.config.signInRateLimit));
   // better-auth reads the raw body itself: mount it before express.json().

@@ -5,6 +5,7 @@ import { eq } from 'drizzle-orm';
 import type { Config } from '../config/env';
 import type { Db } from '../db/client';
 import { account, session, user, verification } from '../db/schema';
+import { CLIENT_ADDRESS_HEADER } from '../security/client-address';
 import { PASSWORD_MIN_LENGTH } from '../../shared/schemas/users.schema';
 
 /** Origins allowed to call /api/auth besides BASE_URL: the Vite dev server in development. */
@@ -67,6 +68,9 @@ export function createAuth(opts: { config: Config; db: Db; secret: string }) {
       useSecureCookies: secure,
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax', secure },
       database: { generateId: 'uuid' },
+      // The client's address comes from Express (server/security/client-address.ts), never from
+      // a header the client wrote.
+      ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
       // better-auth turns the origin check off by itself under NODE_ENV=test; keep it on, so the
       // tests exercise what production does.
       disableOriginCheck: false,

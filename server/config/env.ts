@@ -1,3 +1,4 @@
+import net from 'node:net';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -33,6 +34,16 @@ const port = (name: string, fallback: number) =>
       }
       return n;
     });
+
+/** A `trust proxy` entry Express (proxy-addr) accepts: an address, address/prefix, or a named range. */
+function isProxyEntry(entry: string): boolean {
+  if (['loopback', 'linklocal', 'uniquelocal'].includes(entry)) return true;
+  const [address, prefix, ...rest] = entry.split('/');
+  const family = net.isIP(address);
+  if (!family || rest.length > 0) return false;
+  if (prefix === undefined) return true;
+  return /^\d+$/.test(prefix) && Number(prefix) <= (family === 4 ? 32 : 128);
+}
 
 const positiveInt = (name: string, fallback: number, max: number) =>
   z
@@ -87,6 +98,23 @@ const envSchema = z.object({
   SEED_DEMO: bool('SEED_DEMO', true),
   SIGN_IN_RATE_LIMIT: positiveInt('SIGN_IN_RATE_LIMIT', 10, 100_000),
   SIGN_IN_RATE_WINDOW_MINUTES: positiveInt('SIGN_IN_RATE_WINDOW_MINUTES', 15, 24 * 60),
+  TRUST_PROXY: optionalText.transform((v, ctx) => {
+    if (v === undefined || v === 'false') return false;
+    if (/^\d+$/.test(v)) {
+      const hops = Number(v);
+      if (hops <= 16) return hops;
+    }
+    const entries = v.split(',').map((x) => x.trim()).filter(Boolean);
+    const bad = entries.filter((x) => !isProxyEntry(x));
+    if (entries.length === 0 || bad.length > 0) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `TRUST_PROXY must be false, a number of proxy hops (0–16), or a comma-separated list of proxy addresses or ranges (e.g. 10.0.0.5, 10.1.0.0/16, loopback); not understood: ${bad.map((b) => `"${b}"`).join(', ') || `"${v}"`}`,
+      });
+      return z.NEVER;
+    }
+    return entries.join(',');
+  }),
   TASK_QUEUE: optionalText
     .refine((v) => v === undefined || ['auto', 'in-process', 'pgboss'].includes(v), { message: 'TASK_QUEUE must be auto, in-process or pgboss' })
     .transform((v) => (v ?? 'auto') as 'auto' | 'in-process' | 'pgboss'),
@@ -140,6 +168,11 @@ export type Config = {
   taskQueue: 'auto' | 'in-process' | 'pgboss';
   /** Durable queue: tasks of each kind one instance runs at once (unset: half the cores). */
   taskConcurrency?: number;
+  /**
+   * Express's `trust proxy`: false (the client address is the connection's peer), a number of
+   * proxy hops, or the proxies' addresses/ranges; decides `req.ip` (server/security/client-address.ts).
+   */
+  trustProxy: false | number | string;
   /** Failed sign-ins allowed per client address and window (server/security/rate-limit.ts). */
   signInRateLimit: { limit: number; windowMs: number };
   /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
@@ -197,6 +230,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     fakeSmtpPort: e.FAKE_SMTP_PORT,
     signupEnabled: e.SIGNUP_ENABLED,
     seedDemo: e.SEED_DEMO,
+    trustProxy: e.TRUST_PROXY,
     taskQueue: e.TASK_QUEUE,
     taskConcurrency: e.TASK_CONCURRENCY,
     clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,

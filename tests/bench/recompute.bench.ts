@@ -72,9 +72,10 @@ async function main() {
     const a = stats(idle);
     const b = stats(busy);
     console.log(`\nGUM recompute request (POST /api/calculations/gum, ${budget.inputs.length}-input radiometric budget), milliseconds`);
-    console.log('                          n    median       p95       max      mean');
-    console.log(`idle server         ${String(a.n).padStart(6)}  ${fmt(a.median)}  ${fmt(a.p95)}  ${fmt(a.max)}  ${fmt(a.mean)}`);
-    console.log(`during a ${(TRIALS / 1e6).toFixed(0)}×10^6 run ${String(b.n).padStart(6)}  ${fmt(b.median)}  ${fmt(b.p95)}  ${fmt(b.max)}  ${fmt(b.mean)}`);
+    const busyLabel = `during a ${TRIALS.toExponential(0).replace('1e+', '10^')}-trial run`;
+    console.log(`${''.padEnd(busyLabel.length)}       n    median       p95       max      mean`);
+    console.log(`${'idle server'.padEnd(busyLabel.length)}  ${String(a.n).padStart(6)}  ${fmt(a.median)}  ${fmt(a.p95)}  ${fmt(a.max)}  ${fmt(a.mean)}`);
+    console.log(`${busyLabel}  ${String(b.n).padStart(6)}  ${fmt(b.median)}  ${fmt(b.p95)}  ${fmt(b.max)}  ${fmt(b.mean)}`);
     console.log(`\nthe run was ${stillRunning ? 'still in progress' : 'finished'} after the last timed request (${(busySpan / 1000).toFixed(1)} s of requests); it was then cancelled.`);
     console.log(`median ratio busy/idle: ${(b.median / a.median).toFixed(2)}`);
   } finally {

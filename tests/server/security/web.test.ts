@@ -88,6 +88,46 @@ describe('sign-in rate limit', () => {
   });
 });
 
+describe('client address (rate limits and the sessions list)', () => {
+  // Express 5 documentation, "Express behind proxies": without trust proxy, req.ip is the peer
+  // and X-Forwarded-For is ignored; with it, the address the trusted proxy reports.
+  // OWASP ASVS 4.0 V2.2.1 (a limiter keyed by an address the client chooses is no limiter).
+  let direct: TestApp;
+  let proxied: TestApp;
+  beforeAll(async () => {
+    direct = await createTestApp();
+    proxied = await createTestApp({ env: { TRUST_PROXY: 'loopback' } });
+  });
+  afterAll(async () => {
+    await direct?.close();
+    await proxied?.close();
+  });
+
+  const signInFrom = async (t: TestApp, headers: Record<string, string>) => {
+    const res = await t.agent().post('/api/auth/sign-in/email').set(headers).send({ email: ADMIN, password: DEMO_PASSWORD }).expect(200);
+    const [row] = await t.database.query<{ ip_address: string | null }>('SELECT ip_address FROM "session" WHERE token = $1', [res.body.token]);
+    return row?.ip_address;
+  };
+
+  it('when no proxy is trusted, then the session records the connection peer, whatever X-Forwarded-For or the internal header say', async () => {
+    const ip = await signInFrom(direct, { 'X-Forwarded-For': '203.0.113.9', 'X-Emberline-Client-Address': '198.51.100.7' });
+    expect(ip).toMatch(/^(::ffff:)?127\.0\.0\.1$|^::1$/);
+  });
+
+  it('when the load balancer is trusted (TRUST_PROXY), then the session records the address it reports', async () => {
+    expect(await signInFrom(proxied, { 'X-Forwarded-For': '203.0.113.9' })).toBe('203.0.113.9');
+  });
+
+  it('when TRUST_PROXY is not understood, then the configuration is refused naming it', async () => {
+    const { loadConfig } = await import('../../../server/config/env');
+    expect(() => loadConfig({ TRUST_PROXY: 'everyone' })).toThrow(/TRUST_PROXY.*"everyone"/);
+    expect(() => loadConfig({ TRUST_PROXY: '10.0.0.0/33' })).toThrow(/TRUST_PROXY/);
+    expect(loadConfig({}).trustProxy).toBe(false);
+    expect(loadConfig({ TRUST_PROXY: '1' }).trustProxy).toBe(1);
+    expect(loadConfig({ TRUST_PROXY: '10.0.0.5, 10.1.0.0/16' }).trustProxy).toBe('10.0.0.5,10.1.0.0/16');
+  });
+});
+
 describe('session cookie flags and origin check', () => {
   let http: TestApp;
   let https: TestApp;
