@@ -14,7 +14,8 @@ import type { ReactNode } from 'react';
 import { Document, Page, StyleSheet, Text, View, type Styles } from '@react-pdf/renderer';
 import type { CertificateAnnex, CertificateData, CertificateResultPoint, ConformityResult } from '../../shared/schemas/certificate.schema';
 import { MONO, SANS } from './fonts';
-import { coverageProbability, dateRange, dateTimeUtc, decimalsOf, dof, fixed, longDate, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
+import { coverageProbability, dateRange, dateTimeUtc, dof, fixed, longDate, NBSP, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
+import { formatCondition } from '../../shared/format';
 import { McmHistogram } from './histogram';
 import { palette, size } from './theme';
 
@@ -177,13 +178,6 @@ function Result({ point: p }: { point: CertificateResultPoint }) {
   );
 }
 
-/** An environmental condition as "23.1 ± 0.5 °C": U to at most two significant digits, the value to its decimal place. */
-function condition(c: { value: number; U: number; unit: string }): string {
-  // No uncertainty recorded for the condition: the value alone, not "± 0".
-  if (!(c.U > 0)) return withUnit(num(c.value), c.unit);
-  const U = num(Number(c.U.toPrecision(2)));
-  return plusMinus(fixed(c.value, decimalsOf(U)), U, c.unit);
-}
 
 function FirstPart({ data }: { data: CertificateData }) {
   const { lab, customer, item, dates, method, environment: env } = data;
@@ -250,7 +244,7 @@ function FirstPart({ data }: { data: CertificateData }) {
       <KV k="Method">{`${method.templateName}, version ${method.templateVersion}`}</KV>
       <Text style={[s.para, { marginTop: 3 }]}>{method.description}</Text>
       <KV k="Environmental conditions">
-        {`Ambient temperature ${condition(env.temperature)}; relative humidity ${condition(env.humidity)}${env.note ? `. ${env.note}` : ''}`}
+        {`Ambient temperature ${formatCondition(env.temperature, NBSP)}; relative humidity ${formatCondition(env.humidity, NBSP)}${env.note ? `. ${env.note}` : ''}`}
       </KV>
 
       <Text style={s.h2} minPresenceAhead={60}>Results</Text>

@@ -6,7 +6,7 @@
 import { formatCoverageProbability, formatNumber, formatUnit, groupDigits, MINUS } from '../../shared/format';
 
 /** U+00A0 NO-BREAK SPACE keeps a number and its unit on one line ("0.28 K"). */
-const NBSP = '\u00A0';
+export const NBSP = '\u00A0';
 
 /**
  * An engine `reported` string ("-0.28", "1234.5") as printed: U+2212 for the minus sign and
@@ -46,12 +46,6 @@ export function num(value: number, digits?: number): string {
 /** Fixed decimals (a value rounded to the place of its uncertainty). */
 export function fixed(value: number, decimals: number): string {
   return formatNumber(value, { decimals, notation: 'fixed' });
-}
-
-/** Number of decimals shown by a formatted value ("0.22" → 2). */
-export function decimalsOf(s: string): number {
-  const i = s.indexOf('.');
-  return i < 0 ? 0 : s.length - i - 1;
 }
 
 /** Degrees of freedom: integer, or ∞. */

@@ -81,3 +81,18 @@ export function formatValueAndU(value: number, U: number, unit: string): string 
   const u = formatNumber(Ur / scale, { decimals, notation: 'fixed' });
   return `(${y} ± ${u}) ${TIMES} ${powerOfTen(exponent)}${unitPart}`;
 }
+
+/**
+ * An environmental condition as stated on a certificate: "23.1 ± 0.5 °C" — U to at most two
+ * significant digits and the value to its decimal place (GUM 7.2.6) — or the value alone, "23.1 °C", when no
+ * uncertainty is recorded for it (never "± 0"). `space` goes between the number and the unit (the
+ * PDF passes a no-break space; SI Brochure §5.4.3: a space also before "%").
+ */
+export function formatCondition(c: { value: number; U: number; unit: string }, space = ' '): string {
+  const unit = formatUnit(c.unit);
+  const tail = unit ? `${space}${unit}` : '';
+  if (!(c.U > 0) || !Number.isFinite(c.U)) return `${formatNumber(c.value)}${tail}`;
+  const U = formatNumber(Number(c.U.toPrecision(2)), { notation: 'fixed' });
+  const decimals = U.split('.')[1]?.length ?? 0;
+  return `${formatNumber(c.value, { decimals, notation: 'fixed' })} ± ${U}${tail}`;
+}

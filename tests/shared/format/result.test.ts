@@ -2,7 +2,7 @@
 // §7.2.6 (U to at most two significant digits, the value to the same decimal place);
 // EA-4/02 M:2022 §5 (round up when normal rounding lowers U by more than 5 %).
 import { describe, expect, it } from 'vitest';
-import { formatCoverageProbability, formatResult, formatValueAndU, MINUS, roundUncertainty } from '../../../shared/format';
+import { formatCondition, formatCoverageProbability, formatResult, formatValueAndU, MINUS, roundUncertainty } from '../../../shared/format';
 
 describe('roundUncertainty', () => {
   it('keeps two significant digits', () => {
@@ -55,5 +55,17 @@ describe('formatValueAndU (a Monte Carlo interval has no k)', () => {
   it('rounds as formatResult does, without the coverage statement', () => {
     expect(formatValueAndU(0.43012, 0.7761, 'K')).toBe('0.43 ± 0.78 K');
     expect(formatResult(0.43012, 0.7761, 'K', 2, 0.9545)).toBe(`${formatValueAndU(0.43012, 0.7761, 'K')} (k = 2.00, p ≈ 95 %)`);
+  });
+});
+
+describe('formatCondition (environmental conditions on the certificate)', () => {
+  // GUM (JCGM 100:2008) 7.2.6 for value and U; SI Brochure (9th ed.) §5.4.3: a space between the
+  // number and the unit, also before "%".
+  it('states value ± U with the value at the place of U, or the value alone when no U was recorded', () => {
+    expect(formatCondition({ value: 23.04, U: 1, unit: '°C' })).toBe('23 ± 1 °C');
+    expect(formatCondition({ value: 23.04, U: 0.96, unit: '°C' })).toBe('23.04 ± 0.96 °C');
+    expect(formatCondition({ value: 45.2, U: 5, unit: '%' })).toBe('45 ± 5 %');
+    expect(formatCondition({ value: 23.1, U: 0, unit: '°C' })).toBe('23.1 °C');
+    expect(formatCondition({ value: 23.1, U: 0.5, unit: '°C' }, '\u00A0')).toBe('23.1 ± 0.5\u00A0°C');
   });
 });

@@ -1,5 +1,5 @@
 import type { CertificateData } from '../../../../shared/schemas/certificate.schema';
-import { formatCoverageProbability, formatNumber } from '../../../../shared/format';
+import { formatCondition, formatCoverageProbability } from '../../../../shared/format';
 
 function Row({ k, children }: { k: string; children: React.ReactNode }) {
   return (
@@ -11,14 +11,6 @@ function Row({ k, children }: { k: string; children: React.ReactNode }) {
 }
 
 /** What the certificate will say, from the same CertificateData the PDF is rendered from. */
-/** A condition as the certificate states it: U to two significant digits, the value to the same decimal place; the value alone when no uncertainty was recorded. */
-function condition(c: { value: number; U: number; unit: string }): string {
-  if (!(c.U > 0)) return `${formatNumber(c.value)} ${c.unit}`;
-  const U = formatNumber(Number(c.U.toPrecision(2)), { notation: 'fixed' });
-  const decimals = U.split('.')[1]?.length ?? 0;
-  return `${formatNumber(c.value, { decimals, notation: 'fixed' })} ± ${U} ${c.unit}`;
-}
-
 export function CertificatePreview({ data }: { data: CertificateData }) {
   return (
     <article aria-label="Certificate preview" className="rounded-card border border-line-strong bg-surface p-5 text-sm">
@@ -35,7 +27,7 @@ export function CertificatePreview({ data }: { data: CertificateData }) {
         <Row k="Item">{`${data.item.description}; ${data.item.maker} ${data.item.model}, serial number ${data.item.serialNumber}\nOn receipt: ${data.item.conditionOnReceipt}`}</Row>
         <Row k="Dates">{`Received ${data.dates.receipt}; calibrated ${data.dates.calibration.from}${data.dates.calibration.to ? ` to ${data.dates.calibration.to}` : ''}; issued ${data.dates.issue}`}</Row>
         <Row k="Method">{`${data.method.templateName}, version ${data.method.templateVersion}\n${data.method.description}`}</Row>
-        <Row k="Environment">{`Ambient temperature ${condition(data.environment.temperature)}; relative humidity ${condition(data.environment.humidity)}`}</Row>
+        <Row k="Environment">{`Ambient temperature ${formatCondition(data.environment.temperature)}; relative humidity ${formatCondition(data.environment.humidity)}`}</Row>
       </dl>
       <table className="mt-4 w-full border-collapse">
         <caption className="mb-1 text-left font-semibold">Results: {data.resultLabel}</caption>
