@@ -114,7 +114,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
         <p className="mb-2 text-xs text-ink-muted">Tab moves along a row, Enter to the same field of the next row. Values are shown in the unit chosen at the left of each row and kept in SI.</p>
         <table className="w-full border-collapse text-sm">
           <thead>
-            <tr className="border-b border-line-strong text-left text-xs uppercase tracking-wide text-ink-muted">
+            <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
               <th className="py-1.5 pr-2 font-semibold">Symbol and meaning</th>
               <th className="py-1.5 pr-2 font-semibold">Unit</th>
               <th className="py-1.5 pr-2 font-semibold">Distribution</th>

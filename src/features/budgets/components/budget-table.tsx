@@ -16,7 +16,7 @@ export function BudgetTable({ result, inputs }: { result: EvaluationResult; inpu
   return (
     <table className="w-full border-collapse text-sm" aria-label="Uncertainty budget">
       <thead>
-        <tr className="border-b border-line-strong text-left text-xs uppercase tracking-wide text-ink-muted">
+        <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
           <th className="py-1.5 pr-2 font-semibold">Input</th>
           <th className="py-1.5 pr-2 text-right font-semibold">Estimate x<sub>i</sub></th>
           <th className="py-1.5 pr-2 text-right font-semibold">u(x<sub>i</sub>)</th>

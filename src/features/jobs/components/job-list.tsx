@@ -52,7 +52,7 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
       ) : (
         <table aria-label="Calibration jobs" className="w-full border-collapse text-sm">
           <thead>
-            <tr className="border-b border-line-strong text-left text-xs uppercase tracking-wide text-ink-muted">
+            <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
               <th className="py-2 pr-3">Job</th><th className="py-2 pr-3">Customer</th><th className="py-2 pr-3">Item</th><th className="py-2 pr-3">Status</th><th className="py-2 pr-3 text-right">Points</th><th className="py-2 pr-3">Calibrated</th><th className="py-2">Analyst</th>
             </tr>
           </thead>

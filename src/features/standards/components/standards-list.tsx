@@ -74,7 +74,7 @@ export function StandardsList({ canEdit }: { canEdit: boolean }) {
         <div className="overflow-x-auto rounded-card border border-line bg-surface">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">Reference standards, checked against {q.data.today}</caption>
-            <thead className="border-b border-line bg-sunken text-xs uppercase tracking-wide text-ink-muted">
+            <thead className="border-b border-line bg-sunken text-xs text-ink-muted">
               <tr>
                 <th scope="col" className="px-3 py-2">Standard</th>
                 <th scope="col" className="px-3 py-2">Kind</th>
