@@ -56,12 +56,24 @@ export function requireSession(queryClient: QueryClient) {
   };
 }
 
+/** Whether the browser holds a valid session (GET /api/auth/get-session: the session or null). */
+async function hasSession(): Promise<boolean> {
+  try {
+    const res = await fetch('/api/auth/get-session', { credentials: 'same-origin', headers: { accept: 'application/json' } });
+    return res.ok && (await res.json()) !== null;
+  } catch {
+    return false;
+  }
+}
+
 /** /sign-in while already signed in goes straight to the role's start page. */
 function redirectIfSignedIn(queryClient: QueryClient) {
   return async () => {
-    // Asked directly, not through the query cache: a 401 here is the expected answer, not an
-    // ended session (the cache's 401 hook would send the visitor round in a circle).
-    const me = queryClient.getQueryData(meQueryOptions().queryKey) ?? (await getMe().catch(() => null));
+    // better-auth's public session check answers 200 with null when signed out, so a visitor who
+    // is not signed in causes no refused request (and no console error); /api/me is asked only
+    // when there is a session. Asked directly, not through the query cache: a 401 there would be
+    // taken for an ended session and send the visitor round in a circle.
+    const me = queryClient.getQueryData(meQueryOptions().queryKey) ?? ((await hasSession()) ? await getMe().catch(() => null) : null);
     if (me?.user.role) throw redirect(homePathFor(me.user.role));
     return null;
   };

@@ -1,7 +1,7 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { CAUTIONS } from '../../src/components/ui/cautions';
-import { json, meFor, mockFetch, renderApp } from './render-app';
+import { json, meFor, mockFetch, renderApp, unauthorized } from './render-app';
 
 describe('public pages', () => {
   it('the landing page says what the product does and shows the three cautions', async () => {
@@ -64,9 +64,23 @@ describe('page titles', () => {
 
 describe('sign-in page when already signed in', () => {
   it('goes straight to the role’s start page', async () => {
-    mockFetch({ 'GET /api/me': () => json(200, meFor('customer')) });
+    mockFetch({
+      'GET /api/auth/get-session': () => json(200, { session: { id: 's1' }, user: { id: 'u1' } }),
+      'GET /api/me': () => json(200, meFor('customer')),
+    });
     const { router } = renderApp('/sign-in');
     expect(await screen.findByRole('heading', { level: 1, name: 'My certificates' })).toBeTruthy();
     expect(router.state.location.pathname).toBe('/app/my-certificates');
+  });
+});
+
+describe('sign-in page when signed out', () => {
+  it('asks the public session check only, so no refused request shows in the browser console', async () => {
+    const spy = mockFetch({ 'GET /api/auth/get-session': () => json(200, null), 'GET /api/me': () => unauthorized() });
+    renderApp('/sign-in');
+    expect(await screen.findByRole('button', { name: /sign in/i })).toBeTruthy();
+    const asked = spy.mock.calls.map(([input]) => new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://localhost:3000').pathname);
+    expect(asked).toContain('/api/auth/get-session');
+    expect(asked).not.toContain('/api/me');
   });
 });
