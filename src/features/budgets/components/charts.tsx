@@ -37,6 +37,18 @@ export function histogramSeries(result: EvaluationResult, maxBins = 80) {
   return out;
 }
 
+/** A key entry's mark, drawn as the chart draws it. */
+function Swatch({ kind }: { kind: 'bars' | 'solid' | 'curve' | 'dashed' }) {
+  return (
+    <svg width="22" height="10" aria-hidden="true">
+      {kind === 'bars' && <rect x="6" y="1" width="8" height="9" fill="var(--color-ember)" fillOpacity={0.65} />}
+      {kind === 'solid' && <line x1="11" y1="0" x2="11" y2="10" stroke="var(--color-ember-strong)" strokeWidth={1.5} />}
+      {kind === 'curve' && <path d="M1 9 Q11 -3 21 9" fill="none" stroke="var(--color-ink)" strokeWidth={1.5} />}
+      {kind === 'dashed' && <line x1="11" y1="0" x2="11" y2="10" stroke="var(--color-info)" strokeWidth={1.5} strokeDasharray="3 2" />}
+    </svg>
+  );
+}
+
 export function HistogramChart({ result }: { result: EvaluationResult }) {
   if (!result.mcm) return null;
   const data = histogramSeries(result);
@@ -48,6 +60,13 @@ export function HistogramChart({ result }: { result: EvaluationResult }) {
   const yHi = Math.max(...data.map((d) => Math.max(d.density, d.gum))) * 1.08 || 1;
   return (
     <figure aria-label="Monte Carlo histogram with the GUM normal distribution">
+      {/* A key rather than labels on the lines: the two intervals often nearly coincide. */}
+      <ul className="mb-1 mt-3 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-muted" aria-label="Key">
+        <li className="flex items-center gap-1.5"><Swatch kind="bars" />Monte Carlo trials</li>
+        <li className="flex items-center gap-1.5"><Swatch kind="solid" />Monte Carlo {result.mcm.intervalKind} coverage interval</li>
+        <li className="flex items-center gap-1.5"><Swatch kind="curve" />GUM normal N(y, u²)</li>
+        <li className="flex items-center gap-1.5"><Swatch kind="dashed" />GUM interval y ± U</li>
+      </ul>
       <ResponsiveContainer width="100%" height={260}>
         <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" vertical={false} />
@@ -57,9 +76,9 @@ export function HistogramChart({ result }: { result: EvaluationResult }) {
           <ReferenceArea x1={ml} x2={mh} fill="var(--color-ember-soft)" fillOpacity={0.5} />
           <Bar dataKey="density" name="Monte Carlo" fill="var(--color-ember)" fillOpacity={0.65} isAnimationActive={false} barSize={6} />
           <Line dataKey="gum" name="GUM normal" stroke="var(--color-ink)" dot={false} strokeWidth={1.5} isAnimationActive={false} />
-          <ReferenceLine x={gl} stroke="var(--color-info)" strokeDasharray="5 3" label={{ value: 'GUM', position: 'top', ...axisStyle }} />
+          <ReferenceLine x={gl} stroke="var(--color-info)" strokeDasharray="5 3" />
           <ReferenceLine x={gh} stroke="var(--color-info)" strokeDasharray="5 3" />
-          <ReferenceLine x={ml} stroke="var(--color-ember-strong)" label={{ value: 'MCM', position: 'insideTopLeft', ...axisStyle }} />
+          <ReferenceLine x={ml} stroke="var(--color-ember-strong)" />
           <ReferenceLine x={mh} stroke="var(--color-ember-strong)" />
         </ComposedChart>
       </ResponsiveContainer>
@@ -80,12 +99,31 @@ export function ContributionsChart({ result }: { result: EvaluationResult }) {
         <BarChart data={data} layout="vertical" margin={{ top: 4, right: 16, bottom: 24, left: 8 }}>
           <CartesianGrid stroke="var(--color-line)" horizontal={false} />
           <XAxis {...axis(0, cMax, 4)} tick={axisStyle} label={{ value: `|cᵢ| u(xᵢ) / ${unit}`, position: 'insideBottom', offset: -14, ...axisStyle }} />
-          <YAxis type="category" dataKey="symbol" tick={{ ...axisStyle, fontStyle: 'italic' }} width={80} />
+          {/* interval 0: every input is named, the largest bar first (recharts would otherwise skip labels). */}
+          <YAxis type="category" dataKey="symbol" interval={0} tick={{ ...axisStyle, fontStyle: 'italic' }} width={80} />
           <Tooltip formatter={(v) => `${tick(Number(v))} ${unit}`} />
           <Bar dataKey="contribution" fill="var(--color-ember)" isAnimationActive={false} />
         </BarChart>
       </ResponsiveContainer>
     </figure>
+  );
+}
+
+/**
+ * The vertical axis title "L_λ / (W m⁻² sr⁻¹ µm⁻¹)" (ISO 80000-7: L_λ, spectral radiance) with a
+ * real subscript, which a plain label string cannot carry.
+ */
+function spectralRadianceTitle(props: { viewBox?: unknown }) {
+  const box = props.viewBox as { x: number; y: number; height: number } | undefined;
+  if (!box) return null;
+  const x = box.x + 10;
+  const y = box.y + box.height / 2;
+  return (
+    <text x={x} y={y} transform={`rotate(-90, ${x}, ${y})`} textAnchor="middle" fontSize={axisStyle.fontSize} fill={axisStyle.fill}>
+      <tspan fontStyle="italic">L</tspan>
+      <tspan dy={3} fontSize={8}>λ</tspan>
+      <tspan dy={-3}> / (W m⁻² sr⁻¹ µm⁻¹)</tspan>
+    </text>
   );
 }
 
@@ -111,7 +149,7 @@ export function PlanckChart({ T, lambda }: { T: number; lambda: number }) {
         <LineChart data={data} margin={{ top: 22, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" vertical={false} />
           <XAxis dataKey="um" {...axis(0, umHi, 6)} tick={axisStyle} label={{ value: 'wavelength λ / µm', position: 'insideBottom', offset: -16, ...axisStyle }} />
-          <YAxis {...axis(0, lHi, 4)} tick={axisStyle} width={72} label={{ value: 'L_λ / (W m⁻² sr⁻¹ µm⁻¹)', angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
+          <YAxis {...axis(0, lHi, 4)} tick={axisStyle} width={72} label={{ content: spectralRadianceTitle }} />
           <Tooltip formatter={(v) => tick(Number(v))} labelFormatter={(l) => `${formatNumber(Number(l), { digits: 3 })} µm`} />
           <Line dataKey="L" stroke="var(--color-ember-strong)" dot={false} isAnimationActive={false} />
           <ReferenceLine x={lambda * 1e6} stroke="var(--color-info)" strokeDasharray="5 3" label={{ value: `λ = ${formatNumber(lambda * 1e6, { digits: 3 })} µm`, position: 'top', ...axisStyle }} />
