@@ -1,3 +1,4 @@
 export * from './number';
 export * from './units';
 export * from './result';
+export * from './date';

@@ -4,6 +4,7 @@ import { ROLE_LABELS, roleSchema } from '../../../../shared/schemas/roles';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { auditCsvUrl, useAuditFacets, useAuditPage, useVerifyChain, type AuditFilters } from '../api/audit';
+import { formatDateTimeUtc } from '../../../../shared/format/date';
 
 const field = 'rounded-field border border-line-strong bg-surface px-3 py-2 text-sm';
 const label = (entity: string) => AUDIT_ENTITY_LABELS[entity] ?? entity;
@@ -39,7 +40,7 @@ export function AuditLog() {
       {verify.data &&
         (verify.data.ok ? (
           <Notice tone="ok" label="✓ Chain intact" role="status">
-            All {verify.data.checked} entries match their SHA-256 links (checked {verify.data.verifiedAt.replace('T', ' ').slice(0, 19)} UTC).
+            All {verify.data.checked} entries match their SHA-256 links (checked {formatDateTimeUtc(verify.data.verifiedAt, { seconds: true })}).
             {verify.data.lastHash && <span className="mt-1 block break-all font-mono text-xs">Last entry {verify.data.lastSeq}: {verify.data.lastHash}</span>}
           </Notice>
         ) : (
@@ -73,7 +74,7 @@ function Entry({ e }: { e: AuditEntry }) {
     <li className="px-4 py-3 text-sm">
       <div className="flex flex-wrap items-baseline gap-x-3">
         <span className="font-mono text-xs text-ink-muted">#{e.seq}</span>
-        <time className="font-mono tabular-nums" dateTime={e.at}>{e.at.replace('T', ' ').slice(0, 19)} UTC</time>
+        <time className="font-mono tabular-nums" dateTime={e.at}>{formatDateTimeUtc(e.at, { seconds: true })}</time>
         <span className="font-semibold">{e.action.replace(/_/g, ' ')}</span>
         <span>{label(e.entity)}</span>
         <span className="font-mono text-xs text-ink-muted">{e.entityId}</span>

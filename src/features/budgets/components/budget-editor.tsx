@@ -19,6 +19,7 @@ import { BudgetTable } from './budget-table';
 import { ContributionsChart, HistogramChart, PlanckChart } from './charts';
 import { InputRow } from './input-row';
 import { MonteCarloPanel } from './monte-carlo-panel';
+import { formatDateTimeUtc } from '../../../../shared/format/date';
 
 type Correlation = { between: [string, string]; r: number };
 
@@ -224,7 +225,7 @@ function StoredResult({ point }: { point: Point }) {
       {rep.note && <p className="font-semibold text-warn">{rep.note}</p>}
       <p className="text-xs text-ink-muted">
         {point.current ? 'Current' : '✕ Not current: the budget changed after this result'} · {point.resultEngineVersion}
-        {point.resultSeed !== null ? ` · seed ${point.resultSeed}` : ''} · computed {point.computedAt?.replace('T', ' ').slice(0, 19)} UTC
+        {point.resultSeed !== null ? ` · seed ${point.resultSeed}` : ''} · computed {formatDateTimeUtc(point.computedAt, { seconds: true })}
       </p>
     </div>
   );

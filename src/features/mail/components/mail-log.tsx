@@ -2,9 +2,10 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { Notice } from '../../../components/ui/notice';
 import { Button } from '../../../components/ui/button';
 import { useMailbox, useOutbox, useResend } from '../api/mail';
+import { formatDateTimeUtc } from '../../../../shared/format/date';
 
 const STATUS_WORDS = { queued: 'Waiting to be sent', sending: 'Sending', sent: 'Sent', failed: 'Failed: gave up' } as const;
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—');
+const when = (iso: string | null) => formatDateTimeUtc(iso);
 
 /** Every outgoing message with its delivery status, attempts and last error; resend. */
 export function MailLog() {

@@ -2,6 +2,7 @@ import { Link } from 'react-router';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { Notice } from '../../../components/ui/notice';
 import { useReviewQueue } from '../api/review';
+import { formatDateTimeUtc } from '../../../../shared/format/date';
 
 /** Jobs submitted for review, oldest first. */
 export function ReviewQueue() {
@@ -41,7 +42,7 @@ export function ReviewQueue() {
             <td className="py-2 pr-3">{j.itemLabel}</td>
             <td className="py-2 pr-3">{j.analyst}</td>
             <td className="py-2 pr-3 text-right tabular-nums">{j.points}</td>
-            <td className="py-2 pr-3 tabular-nums">{j.submittedAt ? new Date(j.submittedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : '—'}</td>
+            <td className="py-2 pr-3 tabular-nums">{formatDateTimeUtc(j.submittedAt)}</td>
           </tr>
         ))}
       </tbody>

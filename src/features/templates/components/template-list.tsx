@@ -9,8 +9,9 @@ import { useCreateTemplate } from '../api/create-template';
 import { useTemplates } from '../api/get-templates';
 import { Sym } from './math-tex';
 import { StatusText } from './status-text';
+import { formatDate } from '../../../../shared/format/date';
 
-const day = (iso: string | null) => (iso ? new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }) : '—');
+const day = (iso: string | null) => formatDate(iso);
 
 /** Every measurement model with its latest version, its state in words and its released version. */
 export function TemplateList({ canEdit }: { canEdit: boolean }) {

@@ -11,8 +11,9 @@ import { ReleaseDialog } from './release-dialog';
 import { StatusText } from './status-text';
 import { TEMPLATE_FORM_ID, TemplateEditor } from './template-editor';
 import { ValidationReport } from './validation-report';
+import { formatDateTimeUtc } from '../../../../shared/format/date';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTimeUtc(iso);
 
 /** One version: the editor for a draft, the same form read-only for a released or retired one. */
 export function TemplateVersionView({ version, canEdit }: { version: TemplateVersion; canEdit: boolean }) {

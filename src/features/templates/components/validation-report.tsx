@@ -1,8 +1,9 @@
 import { formatNumber } from '../../../../shared/format';
 import type { ValidationRecord } from '../../../../shared/schemas/template.schema';
 import { Notice } from '../../../components/ui/notice';
+import { formatDateTimeUtc } from '../../../../shared/format/date';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+const when = (iso: string) => formatDateTimeUtc(iso);
 
 /** The stored validation record: each check with passed / failed / not run, in words. */
 export function ValidationReport({ record }: { record: ValidationRecord }) {
