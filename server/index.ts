@@ -25,7 +25,7 @@ async function main() {
     throw err;
   }
 
-  const database = await openDatabase({ dataDir: config.dataDir, databaseUrl: config.databaseUrl });
+  const database = await openDatabase({ dataDir: config.dataDir, databaseUrl: config.databaseUrl, logger });
   let fakeSmtp: FakeSmtp | null = null;
   if (!config.smtp) {
     fakeSmtp = await startFakeSmtp({ port: config.fakeSmtpPort, mailboxDir: path.join(config.dataDir, 'mailbox') }).catch((err) =>

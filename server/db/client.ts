@@ -8,6 +8,7 @@ import { migrate as migratePglite } from 'drizzle-orm/pglite/migrator';
 import { drizzle as drizzlePg } from 'drizzle-orm/node-postgres';
 import { migrate as migratePg } from 'drizzle-orm/node-postgres/migrator';
 import pg from 'pg';
+import { consoleLogger, type Logger } from '../logger';
 import * as schema from './schema';
 
 export type Schema = typeof schema;
@@ -41,6 +42,8 @@ export type OpenDatabaseOptions = {
   migrationsFolder?: string;
   /** Apply pending migrations before returning (default true). */
   migrate?: boolean;
+  /** Where the PostgreSQL pool reports an idle connection the server ended (default: the console logger). */
+  logger?: Pick<Logger, 'warn'>;
 };
 
 /** Finds `drizzle/` by walking up from this file (works from server/db and from dist/server). */
@@ -65,8 +68,9 @@ export async function openDatabase(options: OpenDatabaseOptions): Promise<Databa
     // An idle client whose connection the server ends (restart, pg_terminate_backend: 57P01) is
     // reported on the pool; without a listener node-postgres would crash the process. The pool
     // drops that client and opens a new one on the next query.
+    const logger = options.logger ?? consoleLogger;
     pool.on('error', (err) => {
-      console.warn(`PostgreSQL closed an idle connection: ${err.message}`);
+      logger.warn('PostgreSQL closed an idle connection; the pool opens a new one when needed', { error: err });
     });
     const db = drizzlePg({ client: pool, schema });
     try {

@@ -80,7 +80,7 @@ export async function createTestApp(opts: TestAppOptions = {}): Promise<TestApp>
     error: (message, data) => logs.push({ level: 'error', message, data }),
   };
 
-  const database = await openDatabase({ dataDir, databaseUrl: config.databaseUrl });
+  const database = await openDatabase({ dataDir, databaseUrl: config.databaseUrl, logger });
   const smtp = await startFakeSmtp({ port: 0, mailboxDir: path.join(dataDir, 'mailbox') });
   const mailer = createMailer({ from: config.mailFrom, fakePort: smtp.port });
   const deps = createAppDeps({ config, database, mailer, logger, clock: opts.clock });
