@@ -12,11 +12,11 @@
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { createRequire } from 'node:module';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/db/seed/demo-data';
+import { freePort } from '../setup/free-port';
 
 type AutocannonResult = {
   requests: { average: number; total: number };
@@ -47,17 +47,6 @@ const GOAL_P95_MS = 50;
 const ROOT = path.resolve(path.dirname(new URL(import.meta.url).pathname), '../..');
 
 // --- helpers ------------------------------------------------------------------------------
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const port = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 

@@ -5,25 +5,14 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { freePort } from '../setup/free-port';
+
+export { freePort };
 
 export const DEMO_PASSWORD = 'emberline-demo';
-
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 export interface RunningServer {
   url: string;
@@ -143,4 +132,22 @@ export function isLocal(url: string): boolean {
 export function screenshotPath(name: string): string {
   mkdirSync('test-results/screenshots', { recursive: true });
   return join('test-results/screenshots', `${name}.png`);
+}
+
+/**
+ * Fills the new-job form (already open) for the demo customer Brightwater Glassworks: the item
+ * (by its label, or the first one), the measurement model (its option label), the dates and the
+ * laboratory conditions of the demo scenario. The form is left filled, not submitted.
+ */
+export async function fillNewJob(page: Page, opts: { item?: string; model: string }): Promise<void> {
+  await page.getByRole('combobox', { name: /^Customer/ }).selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
+  const item = page.getByRole('combobox', { name: /^Item to calibrate/ });
+  await (opts.item ? item.selectOption({ label: opts.item }) : item.selectOption({ index: 1 }));
+  await page.getByRole('combobox', { name: /^Measurement model/ }).selectOption({ label: opts.model });
+  await page.getByLabel('Received on').fill('2026-11-27');
+  await page.getByLabel('Calibrated on').fill('2026-12-01');
+  await page.getByLabel('Location', { exact: true }).fill('Laboratory room 2');
+  await page.getByLabel('Temperature / °C').fill('23.1');
+  await page.getByLabel('u(temperature) / °C').fill('0.3');
+  await page.getByLabel('Relative humidity / %').fill('41');
 }

@@ -5,7 +5,7 @@
  */
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+import { fillNewJob, isLocal, openBrowser, screenshotPath, signIn, startServer, type Browser, type RunningServer } from './harness';
 
 const CSV = path.resolve('tests/fixtures/readings/e2e-ir-80C.csv');
 
@@ -31,23 +31,12 @@ describe('an analyst carries a job from a template to submission', () => {
     page.on('response', (r) => {
       if (r.status() >= 400) failed.push(`${r.status()} ${r.request().method()} ${new URL(r.url()).pathname}`);
     });
-    await page.goto(`${server.url}/sign-in`);
-    await page.getByLabel(/e-mail/i).fill('analyst@emberline-demo.test');
-    await page.getByLabel(/password/i).fill(DEMO_PASSWORD);
-    await page.getByRole('button', { name: /sign in/i }).click();
+    await signIn(browser, server.url, 'analyst@emberline-demo.test');
     await page.getByRole('heading', { name: 'Calibration jobs' }).waitFor();
     await page.screenshot({ path: screenshotPath('10-jobs-list'), fullPage: true });
 
     await page.getByRole('link', { name: 'New job' }).click();
-    await page.getByRole('combobox', { name: /^Customer/ }).selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
-    await page.getByRole('combobox', { name: /^Item to calibrate/ }).selectOption({ index: 1 });
-    await page.getByRole('combobox', { name: /^Measurement model/ }).selectOption({ label: 'Infrared thermometer against a reference blackbody — version 1' });
-    await page.getByLabel('Received on').fill('2026-11-27');
-    await page.getByLabel('Calibrated on').fill('2026-12-01');
-    await page.getByLabel('Location', { exact: true }).fill('Laboratory room 2');
-    await page.getByLabel('Temperature / °C').fill('23.1');
-    await page.getByLabel('u(temperature) / °C').fill('0.3');
-    await page.getByLabel('Relative humidity / %').fill('41');
+    await fillNewJob(page, { model: 'Infrared thermometer against a reference blackbody — version 1' });
     await page.screenshot({ path: screenshotPath('11-new-job'), fullPage: true });
     await page.getByRole('button', { name: 'Open the job' }).click();
     await page.getByRole('heading', { name: /EMB-\d{4}-\d{4}/ }).waitFor();

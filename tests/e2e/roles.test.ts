@@ -3,7 +3,7 @@
  * built app and sees its own navigation; no request leaves this machine.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+import { isLocal, openBrowser, screenshotPath, signIn, startServer, type Browser, type RunningServer } from './harness';
 
 const ROLES = [
   { role: 'admin', email: 'admin@emberline-demo.test', nav: ['Users and roles', 'Laboratory details'] },
@@ -36,12 +36,8 @@ describe('sign-in and role navigation in a real browser', () => {
 
   for (const { role, email, nav } of ROLES) {
     it(`signs in as ${role} and sees that role's navigation`, async () => {
-      const { page, context } = browser;
-      await context.clearCookies();
-      await page.goto(`${server.url}/sign-in`);
-      await page.getByLabel(/e-mail/i).fill(email);
-      await page.getByLabel(/password/i).fill(DEMO_PASSWORD);
-      await page.getByRole('button', { name: /sign in/i }).click();
+      const { page } = browser;
+      await signIn(browser, server.url, email);
       const navigation = page.getByRole('navigation', { name: /sections/i });
       for (const label of nav) {
         await expect.poll(() => navigation.getByRole('link', { name: label }).count(), { timeout: 15_000 }).toBeGreaterThan(0);

@@ -14,7 +14,7 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, signIn as signInAs, startServer, type Browser, type RunningServer } from './harness';
+import { DEMO_PASSWORD, fillNewJob, isLocal, openBrowser, screenshotPath, signIn as signInAs, startServer, type Browser, type RunningServer } from './harness';
 
 const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 const MODEL = 'Infrared thermometer against a reference blackbody';
@@ -142,15 +142,7 @@ describe('the whole job, end to end, as each of its users', () => {
     await signIn('analyst@emberline-demo.test');
     await page.goto(`${server.url}/app/jobs`);
     await page.getByRole('link', { name: 'New job' }).click();
-    await page.getByRole('combobox', { name: /^Customer/ }).selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
-    await page.getByRole('combobox', { name: /^Item to calibrate/ }).selectOption({ label: 'Handheld infrared thermometer, Tallowmere Instruments (demo), HT-8, s/n TM8-20417' });
-    await page.getByRole('combobox', { name: /^Measurement model/ }).selectOption({ label: `${MODEL} — version 2` });
-    await page.getByLabel('Received on').fill('2026-11-27');
-    await page.getByLabel('Calibrated on').fill('2026-12-01');
-    await page.getByLabel('Location', { exact: true }).fill('Laboratory room 2');
-    await page.getByLabel('Temperature / °C').fill('23.1');
-    await page.getByLabel('u(temperature) / °C').fill('0.3');
-    await page.getByLabel('Relative humidity / %').fill('41');
+    await fillNewJob(page, { item: 'Handheld infrared thermometer, Tallowmere Instruments (demo), HT-8, s/n TM8-20417', model: `${MODEL} — version 2` });
     await shot('analyst-new-job');
     await page.getByRole('button', { name: 'Open the job' }).click();
     const heading = page.getByRole('heading', { name: /EMB-\d{4}-\d{4}/ });

@@ -5,22 +5,11 @@
  * and not a wrapper.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
+import { freePort } from '../../setup/free-port';
+
+export { freePort };
 
 export const DEMO_PASSWORD = 'emberline-demo';
-
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 export type ChildServer = {
   url: string;
