@@ -3,7 +3,7 @@
 import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { evaluateGum } from '../../shared/engine';
-import { BudgetTable } from '../../src/features/budgets/components/budget-table';
+import { BudgetTable, inDisplayUnit } from '../../src/features/budgets/components/budget-table';
 import { fromDisplay, toDisplay, unitChoices } from '../../src/features/budgets/components/units';
 
 const doc = {
@@ -37,5 +37,30 @@ describe('display units', () => {
     expect(toDisplay('halfWidth', 0.1, 'K', '°C')).toBeCloseTo(0.1, 12);
     expect(fromDisplay('mean', 8, 'm', 'µm')).toBeCloseTo(8e-6, 18);
     expect(fromDisplay('k', 2, 'K', '°C')).toBe(2);
+  });
+});
+
+describe('budget rows in the unit chosen for each input', () => {
+  // SI Brochure (9th ed.) §2.3.1: t/°C = T/K − 273.15, and a temperature difference of 1 °C is 1 K;
+  // 1 µm = 10⁻⁶ m. c_i is per unit of x_i, so c_i·u(x_i) (the contribution) does not change.
+  it('gives the estimate with the offset, u without it, and c per shown unit', () => {
+    const t = inDisplayUnit({ estimate: 353.15, u: 0.01, c: -0.9989 }, 'K', '°C');
+    expect(t.estimate).toBeCloseTo(80, 10);
+    expect(t.u).toBeCloseTo(0.01, 12);
+    expect(t.c).toBeCloseTo(-0.9989, 12);
+    expect(t.unit).toBe('°C');
+    const l = inDisplayUnit({ estimate: 1e-5, u: 5.77e-7, c: 2161 }, 'm', 'µm');
+    expect(l.estimate).toBeCloseTo(10, 10);
+    expect(l.u).toBeCloseTo(0.577, 10);
+    expect(l.c).toBeCloseTo(2.161e-3, 12);
+    expect(l.c * l.u).toBeCloseTo(2161 * 5.77e-7, 12);
+  });
+
+  it('shows the table in °C when the editor shows that input in °C', () => {
+    const result = evaluateGum(doc);
+    render(<BudgetTable result={result} inputs={doc.inputs} shownUnits={{ a: '°C' }} />);
+    const rowA = within(screen.getByRole('table', { name: 'Uncertainty budget' })).getByText('a').closest('tr')!;
+    expect(rowA.textContent).toContain('100.0000');
+    expect(rowA.textContent).toContain('°C');
   });
 });

@@ -166,7 +166,8 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
 
       <section aria-labelledby="budget-heading" className="overflow-x-auto rounded-card border border-line bg-surface p-4">
         <h3 id="budget-heading" className="mb-2 text-base font-semibold">Budget (GUM, computed as you type)</h3>
-        {live.result ? <BudgetTable result={live.result} inputs={inputs} /> : <p className="text-sm text-ink-muted">{live.error}</p>}
+        <p className="mb-2 text-xs text-ink-muted">Estimates, u(x<sub>i</sub>) and c<sub>i</sub> in the unit chosen for each input above; the calculation itself is in SI.</p>
+        {live.result ? <BudgetTable result={live.result} inputs={inputs} shownUnits={units} /> : <p className="text-sm text-ink-muted">{live.error}</p>}
         {live.result?.warnings.map((w) => (
           <p key={w} className="mt-2 text-xs text-warn">⚠ {w}</p>
         ))}

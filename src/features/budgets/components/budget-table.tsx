@@ -1,17 +1,30 @@
 import type { EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
-import { formatUnit } from '../../../../shared/format/units';
+import { convert, convertInterval, formatUnit } from '../../../../shared/format/units';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
 
+/** One input's row figures in the unit shown for it (the engine's are SI). */
+export function inDisplayUnit(b: { estimate: number; u: number; c: number }, si: string, shown: string | undefined): { estimate: number; u: number; c: number; unit: string } {
+  if (!shown || formatUnit(shown) === formatUnit(si)) return { estimate: b.estimate, u: b.u, c: b.c, unit: formatUnit(si) };
+  try {
+    // The estimate is a position (°C has an offset), u a width; c_i is per shown unit:
+    // ∂y/∂x_shown = ∂y/∂x_SI · (one shown unit in SI), so |c_i| u(x_i) is unchanged.
+    return { estimate: convert(b.estimate, si, shown), u: convertInterval(b.u, si, shown), c: b.c * convertInterval(1, shown, si), unit: formatUnit(shown) };
+  } catch {
+    return { estimate: b.estimate, u: b.u, c: b.c, unit: formatUnit(si) };
+  }
+}
+
 /**
  * The GUM budget (JCGM 100 §5.1, Annex G): per input its estimate, standard uncertainty,
  * distribution, sensitivity coefficient c_i, contribution |c_i| u(x_i), degrees of freedom and
- * share of u²(y), as a number and a bar.
+ * share of u²(y), as a number and a bar. Estimates, u(x_i) and c_i are given in the unit chosen
+ * for each input in the editor (`shownUnits`), the engine computing in SI.
  */
-export function BudgetTable({ result, inputs }: { result: EvaluationResult; inputs: PointInput[] }) {
-  const unitOf = (s: string) => formatUnit(inputs.find((i) => i.symbol === s)?.unit ?? '');
+export function BudgetTable({ result, inputs, shownUnits = {} }: { result: EvaluationResult; inputs: PointInput[]; shownUnits?: Record<string, string | undefined> }) {
+  const siOf = (s: string) => inputs.find((i) => i.symbol === s)?.unit ?? '';
   const y = formatUnit(result.unit);
   return (
     <table className="w-full border-collapse text-sm" aria-label="Uncertainty budget">
@@ -28,13 +41,15 @@ export function BudgetTable({ result, inputs }: { result: EvaluationResult; inpu
         </tr>
       </thead>
       <tbody className="font-mono tabular-nums">
-        {result.gum.budget.map((b) => (
+        {result.gum.budget.map((b) => {
+          const d = inDisplayUnit(b, siOf(b.symbol), shownUnits[b.symbol]);
+          return (
           <tr key={b.symbol} className="border-b border-line" data-symbol={b.symbol}>
             <td className="py-1 pr-2 font-sans italic">{b.symbol}</td>
-            <td className="py-1 pr-2 text-right">{num(b.estimate, 7)} <span className="text-ink-muted">{unitOf(b.symbol)}</span></td>
-            <td className="py-1 pr-2 text-right">{num(b.u, 3)}</td>
+            <td className="py-1 pr-2 text-right">{num(d.estimate, 7)} <span className="text-ink-muted">{d.unit}</span></td>
+            <td className="py-1 pr-2 text-right">{num(d.u, 3)} <span className="text-ink-muted">{d.unit}</span></td>
             <td className="py-1 pr-2 font-sans">{b.distribution}</td>
-            <td className="py-1 pr-2 text-right">{num(b.c, 4)}</td>
+            <td className="py-1 pr-2 text-right">{num(d.c, 4)}</td>
             <td className="py-1 pr-2 text-right">{num(b.contribution, 3)}</td>
             <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>
             <td className="py-1">
@@ -46,7 +61,8 @@ export function BudgetTable({ result, inputs }: { result: EvaluationResult; inpu
               </div>
             </td>
           </tr>
-        ))}
+          );
+        })}
       </tbody>
       <tfoot className="font-mono tabular-nums">
         <tr>
