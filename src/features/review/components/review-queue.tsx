@@ -33,7 +33,7 @@ export function ReviewQueue() {
         {q.data.map((j) => (
           <tr key={j.jobId} className="border-b border-line align-top">
             <td className="py-2 pr-3">
-              <Link className="font-semibold text-ember-strong underline" to={`/app/review/${j.jobId}`}>
+              <Link className="whitespace-nowrap font-semibold text-ember-strong underline" to={`/app/review/${j.jobId}`}>
                 {j.jobNumber}
               </Link>
               {j.amends && <div className="text-xs text-ink-muted">Amends {j.amends.certificateNumber}</div>}
@@ -42,7 +42,7 @@ export function ReviewQueue() {
             <td className="py-2 pr-3">{j.itemLabel}</td>
             <td className="py-2 pr-3">{j.analyst}</td>
             <td className="py-2 pr-3 text-right tabular-nums">{j.points}</td>
-            <td className="py-2 pr-3 tabular-nums">{formatDateTimeUtc(j.submittedAt)}</td>
+            <td className="whitespace-nowrap py-2 pr-3 tabular-nums">{formatDateTimeUtc(j.submittedAt)}</td>
           </tr>
         ))}
       </tbody>
