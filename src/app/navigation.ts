@@ -38,7 +38,7 @@ export const SECTIONS: Record<SectionId, Section> = {
 
 export const NAVIGATION: Record<Role, readonly SectionId[]> = {
   admin: ['users', 'lab', 'mail', 'audit'],
-  quality_manager: ['templates', 'standards', 'customers', 'audit', 'mail'],
+  quality_manager: ['templates', 'standards', 'customers', 'certificates', 'audit', 'mail'],
   analyst: ['jobs', 'standards', 'customers'],
   signatory: ['review', 'certificates'],
   customer: ['my-certificates'],

@@ -9,7 +9,7 @@ const EXPECTED: Record<Role, { home: string; heading: string; links: string[] }>
   quality_manager: {
     home: '/app/templates',
     heading: 'Measurement models',
-    links: ['Measurement models', 'Reference standards', 'Customers', 'Audit log', 'E-mail log'],
+    links: ['Measurement models', 'Reference standards', 'Customers', 'Issued certificates', 'Audit log', 'E-mail log'],
   },
   analyst: { home: '/app/jobs', heading: 'Calibration jobs', links: ['Calibration jobs', 'Reference standards, view only', 'Customers, view only'] },
   signatory: { home: '/app/review', heading: 'Awaiting review', links: ['Awaiting review', 'Issued certificates'] },
