@@ -37,6 +37,8 @@ describe('display units', () => {
     expect(toDisplay('halfWidth', 0.1, 'K', '°C')).toBeCloseTo(0.1, 12);
     expect(fromDisplay('mean', 8, 'm', 'µm')).toBeCloseTo(8e-6, 18);
     expect(fromDisplay('k', 2, 'K', '°C')).toBe(2);
+    // d of the trapezoid with inexact limits (JCGM 101 §6.4.3) is a width: 1 µm, not 10⁻⁶ µm.
+    expect(toDisplay('d', 1e-6, 'm', 'µm')).toBeCloseTo(1, 12);
   });
 });
 

@@ -127,3 +127,35 @@ describe('template list', () => {
     expect(row.textContent).toContain('λ');
   });
 });
+
+describe('default distribution in the unit people see', () => {
+  // SI Brochure (9th ed.) §2.3.1: t/°C = T/K − 273.15; a width (U, sd, half-width) is the same
+  // in °C and K; 1 µm = 10⁻⁶ m.
+  it('shows and takes °C and µm, and keeps kelvin and metres in the model', async () => {
+    const { DistributionField } = await import('../../src/features/templates/components/distribution-field');
+    const onChange = vi.fn();
+    const { rerender } = render(<DistributionField label="T_amb" value={{ type: 'normal', mean: 296.15, sd: 1 }} onChange={onChange} unit="K" shownAs="°C" />);
+    const centre = screen.getByLabelText('T_amb: centre') as HTMLInputElement;
+    expect(centre.value).toBe('23');
+    expect(screen.getByText('centre (°C)')).toBeTruthy();
+    fireEvent.change(centre, { target: { value: '23.1' } });
+    expect(onChange.mock.calls.at(-1)![0].mean).toBeCloseTo(296.25, 9);
+    expect(onChange.mock.calls.at(-1)![0].sd).toBe(1);
+    // The stored kelvin value comes back as the typed 23.1, not 23.100000000000023.
+    rerender(<DistributionField label="T_amb" value={onChange.mock.calls.at(-1)![0]} onChange={onChange} unit="K" shownAs="°C" />);
+    expect((screen.getByLabelText('T_amb: centre') as HTMLInputElement).value).toBe('23.1');
+
+    rerender(<DistributionField label="lambda" value={{ type: 'rectangular', mean: 1e-5, halfWidth: 1e-6 }} onChange={onChange} unit="m" shownAs="µm" />);
+    expect((screen.getByLabelText('lambda: centre') as HTMLInputElement).value).toBe('10');
+    expect((screen.getByLabelText('lambda: half-width a') as HTMLInputElement).value).toBe('1');
+    fireEvent.change(screen.getByLabelText('lambda: half-width a'), { target: { value: '0.5' } });
+    expect(onChange.mock.calls.at(-1)![0].halfWidth).toBeCloseTo(5e-7, 18);
+  });
+
+  it('stays in SI while the unit shown is not one it can convert to', async () => {
+    const { DistributionField } = await import('../../src/features/templates/components/distribution-field');
+    render(<DistributionField label="T_x" value={{ type: 'normal', mean: 300, sd: 0.1 }} onChange={() => {}} unit="K" shownAs="°" />);
+    expect((screen.getByLabelText('T_x: centre') as HTMLInputElement).value).toBe('300');
+    expect(screen.getByText('centre (K)')).toBeTruthy();
+  });
+});

@@ -17,7 +17,7 @@ export function unitChoices(si: string | undefined): string[] {
 }
 
 export const POSITION_KEYS = new Set(['mean', 'min', 'max', 'mode', 'value']);
-export const WIDTH_KEYS = new Set(['sd', 'expanded', 'halfWidth', 'scale']);
+export const WIDTH_KEYS = new Set(['sd', 'expanded', 'halfWidth', 'scale', 'd']);
 
 /** A parameter of the distribution in the display unit. */
 export function toDisplay(key: string, v: number, si: string | undefined, shown: string | undefined): number {

@@ -1,4 +1,6 @@
+import { formatUnit } from '../../../../shared/format/units';
 import type { Distribution } from '../../../../shared/schemas/budget.schema';
+import { fromDisplay, POSITION_KEYS, toDisplay, WIDTH_KEYS } from '../../budgets/components/units';
 import { NumberInput } from './number-input';
 
 /** Ways to state an input's default distribution (JCGM 101 §6.4), with their parameters. */
@@ -63,10 +65,29 @@ function starter(form: FormId, c: number): Distribution {
 
 type Loose = Record<string, unknown>;
 
-/** Distribution type and its parameters, in one table cell. */
-export function DistributionField({ value, onChange, label, errors }: { value: Distribution; onChange: (d: Distribution) => void; label: string; errors?: Record<string, string> }) {
+/**
+ * Distribution type and its parameters, in one table cell. Parameters carrying the input's unit
+ * are shown and typed in the unit people see (`shownAs`, e.g. °C or µm) and kept in SI (`unit`),
+ * positions with the offset and widths without, as in the budget editor. An unknown or incompatible
+ * `shownAs` (still being typed, say) leaves them in SI.
+ */
+export function DistributionField({ value, onChange, label, errors, unit, shownAs }: { value: Distribution; onChange: (d: Distribution) => void; label: string; errors?: Record<string, string>; unit?: string; shownAs?: string }) {
   const form = FORMS.find((f) => f.id === formOf(value))!;
   const v = value as unknown as Loose;
+  let shown = unit;
+  try {
+    if (shownAs) toDisplay('mean', 0, unit, shownAs);
+    shown = shownAs || unit;
+  } catch {
+    shown = unit;
+  }
+  // 12 significant digits: a value typed in °C comes back from kelvin without binary noise, so the field does not rewrite it.
+  const display = (p: string, n: number | undefined) => (n === undefined || !Number.isFinite(n) ? n : Number(toDisplay(p, n, unit, shown).toPrecision(12)));
+  const store = (p: string, n: number | undefined) => (n === undefined || !Number.isFinite(n) ? n : fromDisplay(p, n, unit, shown));
+  const unitOf = (p: string) => {
+    const u = shown ? formatUnit(shown) : '';
+    return (POSITION_KEYS.has(p) || WIDTH_KEYS.has(p) || p === 'values') && u && u !== '1' ? ` (${u})` : '';
+  };
   return (
     <div className="flex flex-col gap-1">
       <select
@@ -82,15 +103,22 @@ export function DistributionField({ value, onChange, label, errors }: { value: D
       <div className="grid grid-cols-[max-content_1fr] items-center gap-x-2 gap-y-1">
         {form.params.map((p) => (
           <label key={p} className="contents text-xs text-ink-muted">
-            <span>{PARAM_LABELS[p]}</span>
+            <span>{PARAM_LABELS[p]}{unitOf(p)}</span>
             {p === 'values' ? (
-              <ReadingsInput values={(v.values as number[]) ?? []} onChange={(values) => onChange({ ...(v as object), values } as Distribution)} label={`${label}: readings`} invalid={!!errors?.values} />
+              <ReadingsInput
+                key={shown}
+                values={((v.values as number[]) ?? []).map((x) => display('mean', x) as number)}
+                onChange={(values) => onChange({ ...(v as object), values: values.map((x) => store('mean', x) as number) } as Distribution)}
+                label={`${label}: readings`}
+                invalid={!!errors?.values}
+              />
             ) : (
               <NumberInput
                 aria-label={`${label}: ${PARAM_LABELS[p]}`}
-                value={v[p] as number | undefined}
+                value={display(p, v[p] as number | undefined)}
                 invalid={!!errors?.[p]}
-                onChange={(n) => {
+                onChange={(input) => {
+                  const n = store(p, input);
                   const next: Loose = { ...v, [p]: n };
                   if (n === undefined) delete next[p];
                   onChange(next as unknown as Distribution);

@@ -307,7 +307,7 @@ export function TemplateEditor({ definition, readOnly, saving, onSave, onDirtyCh
                         <Controller
                           control={control}
                           name={`inputs.${i}.distribution`}
-                          render={({ field: d }) => <DistributionField label={sym} value={d.value as never} onChange={d.onChange} errors={distErrors} />}
+                          render={({ field: d }) => <DistributionField label={sym} value={d.value as never} onChange={d.onChange} errors={distErrors} unit={values.inputs?.[i]?.unit} shownAs={values.inputs?.[i]?.displayUnit} />}
                         />
                       </td>
                       <td className="w-20 px-2 py-1.5">
