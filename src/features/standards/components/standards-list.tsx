@@ -95,13 +95,13 @@ export function StandardsList({ canEdit }: { canEdit: boolean }) {
                   </td>
                   <td className="px-3 py-2">{STANDARD_KIND_LABELS[s.kind]}</td>
                   <td className="px-3 py-2 whitespace-nowrap font-mono tabular-nums">{s.serialNumber}</td>
-                  <td className="px-3 py-2">
+                  <td className="px-3 py-2 whitespace-nowrap">
                     {s.certificateNumber}
                     <span className="block text-xs text-ink-muted">{s.hasCertificateFile ? 'PDF on file' : 'No PDF yet'}</span>
                   </td>
                   <td className="px-3 py-2 whitespace-nowrap text-right font-mono tabular-nums">{s.dueDate}</td>
-                  <td className="px-3 py-2"><DueStateText due={s.due} daysToDue={s.daysToDue} /></td>
-                  <td className="px-3 py-2">{STANDARD_STATUS_LABELS[s.status]}</td>
+                  <td className="px-3 py-2 whitespace-nowrap"><DueStateText due={s.due} daysToDue={s.daysToDue} /></td>
+                  <td className="px-3 py-2 whitespace-nowrap">{STANDARD_STATUS_LABELS[s.status]}</td>
                 </tr>
               ))}
             </tbody>
