@@ -140,8 +140,16 @@ export function screenshotPath(name: string): string {
  * laboratory conditions of the demo scenario. The form is left filled, not submitted.
  */
 export async function fillNewJob(page: Page, opts: { item?: string; model: string }): Promise<void> {
-  await page.getByRole('combobox', { name: /^Customer/ }).selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
+  const customer = page.getByRole('combobox', { name: /^Customer/ });
   const item = page.getByRole('combobox', { name: /^Item to calibrate/ });
+  await customer.selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
+  // Once in a full CI run the form was found fresh again right after the customer was chosen (the
+  // item list stayed disabled; the page's /api/jobs/options request had been aborted), and the
+  // cause is not known. Say so in the test output, with what the page then held, and choose again.
+  if (!(await waitEnabled(item, 15_000))) {
+    console.warn(`[fillNewJob] the customer choice did not hold on ${page.url()} (customer select value "${await customer.inputValue()}"); choosing again`);
+    await customer.selectOption({ label: 'Brightwater Glassworks Ltd (demo)' });
+  }
   await (opts.item ? item.selectOption({ label: opts.item }) : item.selectOption({ index: 1 }));
   await page.getByRole('combobox', { name: /^Measurement model/ }).selectOption({ label: opts.model });
   await page.getByLabel('Received on').fill('2026-11-27');
@@ -150,4 +158,14 @@ export async function fillNewJob(page: Page, opts: { item?: string; model: strin
   await page.getByLabel('Temperature / °C').fill('23.1');
   await page.getByLabel('u(temperature) / °C').fill('0.3');
   await page.getByLabel('Relative humidity / %').fill('41');
+}
+
+/** Whether `locator` becomes enabled within `ms` (polling, as a person would look again). */
+async function waitEnabled(locator: ReturnType<Page['locator']>, ms: number): Promise<boolean> {
+  const end = Date.now() + ms;
+  while (Date.now() < end) {
+    if (await locator.isEnabled().catch(() => false)) return true;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return false;
 }
