@@ -3,7 +3,8 @@
 import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { evaluateGum } from '../../shared/engine';
-import { BudgetTable, inDisplayUnit } from '../../src/features/budgets/components/budget-table';
+import { BudgetTable } from '../../src/features/budgets/components/budget-table';
+import { inDisplayUnit } from '../../shared/format/units';
 import { fromDisplay, toDisplay, unitChoices } from '../../src/features/budgets/components/units';
 
 const doc = {

@@ -1,21 +1,9 @@
 import type { EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
-import { convert, convertInterval, formatUnit } from '../../../../shared/format/units';
+import { formatUnit, inDisplayUnit } from '../../../../shared/format/units';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
-
-/** One input's row figures in the unit shown for it (the engine's are SI). */
-export function inDisplayUnit(b: { estimate: number; u: number; c: number }, si: string, shown: string | undefined): { estimate: number; u: number; c: number; unit: string } {
-  if (!shown || formatUnit(shown) === formatUnit(si)) return { estimate: b.estimate, u: b.u, c: b.c, unit: formatUnit(si) };
-  try {
-    // The estimate is a position (°C has an offset), u a width; c_i is per shown unit:
-    // ∂y/∂x_shown = ∂y/∂x_SI · (one shown unit in SI), so |c_i| u(x_i) is unchanged.
-    return { estimate: convert(b.estimate, si, shown), u: convertInterval(b.u, si, shown), c: b.c * convertInterval(1, shown, si), unit: formatUnit(shown) };
-  } catch {
-    return { estimate: b.estimate, u: b.u, c: b.c, unit: formatUnit(si) };
-  }
-}
 
 /**
  * The GUM budget (JCGM 100 §5.1, Annex G): per input its estimate, standard uncertainty,

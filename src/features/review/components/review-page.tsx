@@ -3,7 +3,7 @@ import { Link } from 'react-router';
 import { Cautions } from '../../../components/ui/cautions';
 import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
-import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU } from '../../../../shared/format';
+import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit } from '../../../../shared/format';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
 import { CertificatePreview } from './certificate-preview';
@@ -100,26 +100,32 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                     <thead>
                       <tr className="border-b border-line-strong text-left">
                         <th className="py-1 pr-2">Quantity</th>
-                        <th className="py-1 pr-2 text-right">Estimate (SI)</th>
+                        <th className="py-1 pr-2 text-right">Estimate</th>
                         <th className="py-1 pr-2 text-right"><i>u</i>(<i>x</i><sub>i</sub>)</th>
                         <th className="py-1 pr-2">Distribution</th>
                         <th className="py-1 pr-2 text-right"><i>c</i><sub>i</sub></th>
-                        <th className="py-1 pr-2 text-right">|<i>c</i><sub>i</sub>| <i>u</i>(<i>x</i><sub>i</sub>)</th>
+                        <th className="py-1 pr-2 text-right">|<i>c</i><sub>i</sub>| <i>u</i>(<i>x</i><sub>i</sub>) / {formatUnit(r.unit)}</th>
                         <th className="py-1 pr-2 text-right">Share</th>
                       </tr>
                     </thead>
                     <tbody>
-                      {r.gum.budget.map((b) => (
+                      {r.gum.budget.map((b) => {
+                        // In the unit the analyst saw for the input (°C, µm), as the budget editor shows it.
+                        const input = p.inputs.find((i) => i.symbol === b.symbol);
+                        const d = inDisplayUnit(b, input?.unit ?? '', input?.displayUnit ?? input?.unit);
+                        const unit = d.unit === '1' ? '' : d.unit;
+                        return (
                         <tr key={b.symbol} className="border-b border-line">
                           <td className="py-1 pr-2 font-mono">{b.symbol}</td>
-                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.estimate)}</td>
-                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.u)}</td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <span className="text-ink-muted">{unit}</span></td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <span className="text-ink-muted">{unit}</span></td>
                           <td className="py-1 pr-2">{b.distribution}</td>
-                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.c)}</td>
+                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{formatNumber(b.share * 100, { decimals: 1, notation: 'fixed' })} %</td>
                         </tr>
-                      ))}
+                        );
+                      })}
                     </tbody>
                   </table>
                 </>
