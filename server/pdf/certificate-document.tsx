@@ -178,7 +178,6 @@ function Result({ point: p }: { point: CertificateResultPoint }) {
   );
 }
 
-
 function FirstPart({ data }: { data: CertificateData }) {
   const { lab, customer, item, dates, method, environment: env } = data;
   const anyOutside = data.results.some((r) => r.outsideAccreditation);

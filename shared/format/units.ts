@@ -143,16 +143,17 @@ export function convertInterval(value: number, from: string, to: string): number
 
 /**
  * One budget row's estimate, u(x_i) and c_i in the unit shown for the input (the engine's are SI):
- * the estimate converts as a position (°C has an offset), u as a width, and c_i per shown unit, so
- * |c_i| u(x_i) is unchanged (SI Brochure §2.3.1). An unknown or incompatible unit leaves SI.
+ * the estimate converts as a position (°C has an offset), u as a width, and c_i per shown unit
+ * (∂y/∂x_shown = ∂y/∂x_SI · one shown unit in SI), so |c_i| u(x_i) is unchanged (SI Brochure
+ * §2.3.1). An unknown or incompatible unit leaves SI. `unit` is the unit to print beside the
+ * figures: empty for a dimensionless input ("1").
  */
 export function inDisplayUnit(b: { estimate: number; u: number; c: number }, si: string, shown: string | undefined): { estimate: number; u: number; c: number; unit: string } {
-  if (!shown || formatUnit(shown) === formatUnit(si)) return { estimate: b.estimate, u: b.u, c: b.c, unit: formatUnit(si) };
+  const label = (u: string) => (formatUnit(u) === '1' ? '' : formatUnit(u));
+  if (!shown || formatUnit(shown) === formatUnit(si)) return { estimate: b.estimate, u: b.u, c: b.c, unit: label(si) };
   try {
-    // The estimate is a position (°C has an offset), u a width; c_i is per shown unit:
-    // ∂y/∂x_shown = ∂y/∂x_SI · (one shown unit in SI), so |c_i| u(x_i) is unchanged.
-    return { estimate: convert(b.estimate, si, shown), u: convertInterval(b.u, si, shown), c: b.c * convertInterval(1, shown, si), unit: formatUnit(shown) };
+    return { estimate: convert(b.estimate, si, shown), u: convertInterval(b.u, si, shown), c: b.c * convertInterval(1, shown, si), unit: label(shown) };
   } catch {
-    return { estimate: b.estimate, u: b.u, c: b.c, unit: formatUnit(si) };
+    return { estimate: b.estimate, u: b.u, c: b.c, unit: label(si) };
   }
 }

@@ -24,8 +24,9 @@ function compileKey(doc: BudgetDocument, options: CompileOptions): string {
  *
  * A budget is recomputed many times with the same model and new input values (the live budget
  * table as the analyst types, the server's GUM requests), and compiling — parsing, the
- * allow-list check, symbolic derivatives, code generation — costs about ten times the GUM
- * propagation itself (`npm run bench` prints compileModel's time). The compiled model depends only on
+ * allow-list check, symbolic derivatives, code generation — took about 1.2 ms of the 1.5 ms of a
+ * GUM evaluation of a shipped template (measured on the development machine; `npm run bench`
+ * prints compileModel's time for its model). The compiled model depends only on
  * what compileKey lists and holds no state between calls, so the same object is handed out again
  * for the same key. A refused model is not kept: it is checked, and refused, every time.
  */

@@ -31,12 +31,11 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
       <tbody className="font-mono tabular-nums">
         {result.gum.budget.map((b) => {
           const d = inDisplayUnit(b, siOf(b.symbol), shownUnits[b.symbol]);
-          const unit = d.unit === '1' ? '' : d.unit; // a dimensionless input shows no unit
           return (
           <tr key={b.symbol} className="border-b border-line" data-symbol={b.symbol}>
             <td className="py-1 pr-2 font-sans italic">{b.symbol}</td>
-            <td className="py-1 pr-2 text-right">{num(d.estimate, 7)} <span className="text-ink-muted">{unit}</span></td>
-            <td className="py-1 pr-2 text-right">{num(d.u, 3)} <span className="text-ink-muted">{unit}</span></td>
+            <td className="py-1 pr-2 text-right">{num(d.estimate, 7)} <span className="text-ink-muted">{d.unit}</span></td>
+            <td className="py-1 pr-2 text-right">{num(d.u, 3)} <span className="text-ink-muted">{d.unit}</span></td>
             <td className="py-1 pr-2 font-sans">{b.distribution}</td>
             <td className="py-1 pr-2 text-right">{num(d.c, 4)}</td>
             <td className="py-1 pr-2 text-right">{num(b.contribution, 3)}</td>

@@ -5,7 +5,6 @@ import { useMailbox, useOutbox, useResend } from '../api/mail';
 import { formatDateTimeUtc } from '../../../../shared/format/date';
 
 const STATUS_WORDS = { queued: 'Waiting to be sent', sending: 'Sending', sent: 'Sent', failed: 'Failed: gave up' } as const;
-const when = (iso: string | null) => formatDateTimeUtc(iso);
 
 /** Every outgoing message with its delivery status, attempts and last error; resend. */
 export function MailLog() {
@@ -36,7 +35,7 @@ export function MailLog() {
       <tbody>
         {q.data.map((m) => (
           <tr key={m.id} className="border-b border-line align-top">
-            <td className="py-2 pr-3 tabular-nums">{when(m.createdAt)}</td>
+            <td className="py-2 pr-3 tabular-nums">{formatDateTimeUtc(m.createdAt)}</td>
             <td className="py-2 pr-3 break-all">{m.to.join(', ')}</td>
             <td className="py-2 pr-3">
               {m.subject}
@@ -48,8 +47,8 @@ export function MailLog() {
             </td>
             <td className="py-2 pr-3">
               {STATUS_WORDS[m.status]}
-              {m.status === 'sent' && <div className="text-xs text-ink-muted">{when(m.sentAt)}</div>}
-              {m.status === 'queued' && m.attempts > 0 && <div className="text-xs text-ink-muted">next try {when(m.nextAttemptAt)}</div>}
+              {m.status === 'sent' && <div className="text-xs text-ink-muted">{formatDateTimeUtc(m.sentAt)}</div>}
+              {m.status === 'queued' && m.attempts > 0 && <div className="text-xs text-ink-muted">next try {formatDateTimeUtc(m.nextAttemptAt)}</div>}
               {m.lastError && m.status !== 'sent' && <div className="text-xs text-danger">Last error: {m.lastError}</div>}
             </td>
             <td className="py-2 pr-3 text-right tabular-nums">{m.attempts}</td>
@@ -78,7 +77,7 @@ export function Mailbox() {
         <li key={m.id} className="rounded-card border border-line bg-surface p-4 text-sm" aria-label={`Message to ${m.to.join(', ')}: ${m.subject}`}>
           <p className="font-semibold">{m.subject}</p>
           <p className="text-ink-muted">
-            To {m.to.join(', ')} · received {when(m.receivedAt)}
+            To {m.to.join(', ')} · received {formatDateTimeUtc(m.receivedAt)}
           </p>
           <pre className="mt-2 whitespace-pre-wrap font-sans">{m.text}</pre>
           {m.attachments.map((a) => (

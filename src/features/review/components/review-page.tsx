@@ -112,13 +112,12 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                       {r.gum.budget.map((b) => {
                         // In the unit the analyst saw for the input (°C, µm), as the budget editor shows it.
                         const input = p.inputs.find((i) => i.symbol === b.symbol);
-                        const d = inDisplayUnit(b, input?.unit ?? '', input?.displayUnit ?? input?.unit);
-                        const unit = d.unit === '1' ? '' : d.unit;
+                        const d = inDisplayUnit(b, input?.unit ?? '', input?.displayUnit);
                         return (
                         <tr key={b.symbol} className="border-b border-line">
                           <td className="py-1 pr-2 font-mono">{b.symbol}</td>
-                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <span className="text-ink-muted">{unit}</span></td>
-                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <span className="text-ink-muted">{unit}</span></td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <span className="text-ink-muted">{d.unit}</span></td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <span className="text-ink-muted">{d.unit}</span></td>
                           <td className="py-1 pr-2">{b.distribution}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>

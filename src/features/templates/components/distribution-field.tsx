@@ -75,11 +75,13 @@ export function DistributionField({ value, onChange, label, errors, unit, shownA
   const form = FORMS.find((f) => f.id === formOf(value))!;
   const v = value as unknown as Loose;
   let shown = unit;
-  try {
-    if (shownAs) toDisplay('mean', 0, unit, shownAs);
-    shown = shownAs || unit;
-  } catch {
-    shown = unit;
+  if (shownAs) {
+    try {
+      toDisplay('mean', 0, unit, shownAs); // throws for a unit it cannot convert to (one still being typed, say)
+      shown = shownAs;
+    } catch {
+      // stays SI
+    }
   }
   // 12 significant digits: a value typed in °C comes back from kelvin without binary noise, so the field does not rewrite it.
   const display = (p: string, n: number | undefined) => (n === undefined || !Number.isFinite(n) ? n : Number(toDisplay(p, n, unit, shown).toPrecision(12)));

@@ -11,8 +11,6 @@ import { Sym } from './math-tex';
 import { StatusText } from './status-text';
 import { formatDate } from '../../../../shared/format/date';
 
-const day = (iso: string | null) => formatDate(iso);
-
 /** Every measurement model with its latest version, its state in words and its released version. */
 export function TemplateList({ canEdit }: { canEdit: boolean }) {
   const { data, error, isPending } = useTemplates();
@@ -63,12 +61,12 @@ function Row({ t }: { t: TemplateSummary }) {
       <td className="px-3 py-2.5"><StatusText status={t.latest.status} /></td>
       <td className="px-3 py-2.5">
         {released ? (
-          <Link to={`/app/templates/versions/${released.id}`}>Version {released.version}, released {day(released.releasedAt)}</Link>
+          <Link to={`/app/templates/versions/${released.id}`}>Version {released.version}, released {formatDate(released.releasedAt)}</Link>
         ) : (
           <span className="text-ink-muted">None</span>
         )}
       </td>
-      <td className="px-4 py-2.5 whitespace-nowrap text-ink-muted">{day(t.latest.updatedAt)}</td>
+      <td className="px-4 py-2.5 whitespace-nowrap text-ink-muted">{formatDate(t.latest.updatedAt)}</td>
     </tr>
   );
 }

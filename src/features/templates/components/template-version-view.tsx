@@ -13,8 +13,6 @@ import { TEMPLATE_FORM_ID, TemplateEditor } from './template-editor';
 import { ValidationReport } from './validation-report';
 import { formatDateTimeUtc } from '../../../../shared/format/date';
 
-const when = (iso: string) => formatDateTimeUtc(iso);
-
 /** One version: the editor for a draft, the same form read-only for a released or retired one. */
 export function TemplateVersionView({ version, canEdit }: { version: TemplateVersion; canEdit: boolean }) {
   const navigate = useNavigate();
@@ -48,9 +46,9 @@ export function TemplateVersionView({ version, canEdit }: { version: TemplateVer
           <p className="mt-1 flex flex-wrap items-center gap-2 text-sm text-ink-muted">
             <span className="font-semibold text-ink">Version {version.version}</span>
             <StatusText status={version.status} />
-            {version.releasedAt && <span>released {when(version.releasedAt)}{version.releasedBy ? ` by ${version.releasedBy.name}` : ''}</span>}
-            {version.retiredAt && <span>· retired {when(version.retiredAt)}</span>}
-            {version.status === 'draft' && <span>last saved {when(version.updatedAt)}{version.updatedBy ? ` by ${version.updatedBy.name}` : ''}</span>}
+            {version.releasedAt && <span>released {formatDateTimeUtc(version.releasedAt)}{version.releasedBy ? ` by ${version.releasedBy.name}` : ''}</span>}
+            {version.retiredAt && <span>· retired {formatDateTimeUtc(version.retiredAt)}</span>}
+            {version.status === 'draft' && <span>last saved {formatDateTimeUtc(version.updatedAt)}{version.updatedBy ? ` by ${version.updatedBy.name}` : ''}</span>}
           </p>
           {siblings.length > 1 && (
             <nav aria-label="Versions" className="mt-1 flex flex-wrap gap-2 text-xs">

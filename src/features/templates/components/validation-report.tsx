@@ -3,15 +3,13 @@ import type { ValidationRecord } from '../../../../shared/schemas/template.schem
 import { Notice } from '../../../components/ui/notice';
 import { formatDateTimeUtc } from '../../../../shared/format/date';
 
-const when = (iso: string) => formatDateTimeUtc(iso);
-
 /** The stored validation record: each check with passed / failed / not run, in words. */
 export function ValidationReport({ record }: { record: ValidationRecord }) {
   const title = record.purpose === 'release' ? (record.passed ? 'Release validation passed' : 'Release refused: validation failed') : record.passed ? 'Check passed: ready to release' : 'Check found problems';
   return (
     <Notice tone={record.passed ? 'ok' : 'danger'} label={title} role="status">
       <p className="text-xs text-ink-muted">
-        {record.checkedBy.name}, {when(record.checkedAt)} · {record.engineVersion}
+        {record.checkedBy.name}, {formatDateTimeUtc(record.checkedAt)} · {record.engineVersion}
       </p>
       <ul className="mt-2 space-y-1">
         {record.checks.map((c) => (
