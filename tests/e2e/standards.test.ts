@@ -4,38 +4,21 @@
  * (EMBERLINE_CLOCK_OFFSET_DAYS) passes its due date. ISO/IEC 17025:2017 §6.4.13 (equipment
  * records with due dates); the 30-day warning window is common practice, no source.
  */
-import { spawn } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, freePort, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
+import { DEMO_PASSWORD, isLocal, openBrowser, screenshotPath, startServer, type Browser, type RunningServer } from './harness';
 
 /**
  * Migrates and seeds a fresh DATA_DIR by starting the built server once and stopping it, so the
- * harness's start (which waits a fixed time) only reopens it. The first start on a busy machine
- * can take minutes; this wait is a start-up deadline, not a timing assertion.
+ * later start with the shifted clock only reopens it.
  */
 async function preparedDataDir(): Promise<string> {
   const dataDir = mkdtempSync(join(tmpdir(), 'emberline-e2e-standards-'));
-  const port = await freePort();
-  const child = spawn(process.execPath, ['dist/server/index.js'], {
-    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), DATA_DIR: dataDir, FAKE_SMTP_PORT: String(await freePort()), BASE_URL: `http://localhost:${port}` },
-    stdio: 'ignore',
-  });
-  const exited = new Promise((r) => child.once('exit', r));
-  try {
-    for (let i = 0; i < 1100; i++) {
-      if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode} while preparing ${dataDir}`);
-      const up = await fetch(`http://localhost:${port}/api/health`).then((r) => r.ok).catch(() => false);
-      if (up) return dataDir;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    throw new Error('the server did not come up to prepare the data folder');
-  } finally {
-    child.kill('SIGTERM');
-    await exited;
-  }
+  const first = await startServer({ dataDir });
+  await first.stop();
+  return dataDir;
 }
 
 const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);

@@ -5,7 +5,7 @@
  * and not a wrapper.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { freePort } from '../../setup/free-port';
+import { freePort, startWithFreePorts } from '../../setup/free-port';
 
 export { freePort };
 
@@ -23,8 +23,10 @@ export type ChildServer = {
 };
 
 export async function startChildServer(opts: { dataDir: string; env?: Record<string, string> }): Promise<ChildServer> {
-  const port = await freePort();
-  const smtpPort = await freePort();
+  return startWithFreePorts((port, smtpPort) => startOn(opts, port, smtpPort));
+}
+
+async function startOn(opts: { dataDir: string; env?: Record<string, string> }, port: number, smtpPort: number): Promise<ChildServer> {
   const url = `http://127.0.0.1:${port}`;
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: process.cwd(),
