@@ -174,11 +174,11 @@ export function ErrorAcrossJobChart({ points, unit, nominalUnit, label }: { poin
       <ResponsiveContainer width="100%" height={220}>
         <ScatterChart margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" />
-          <XAxis dataKey="nominal" {...axis(nLo - nPad, nHi + nPad, 5)} tick={axisStyle} label={{ value: `calibration point / ${formatUnit(nominalUnit)}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <XAxis dataKey="nominal" {...axis(nLo - nPad, nHi + nPad, 5)} tick={axisStyle} label={{ value: `Nominal value / ${formatUnit(nominalUnit)}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
           <YAxis dataKey="y" {...axis(yLo - yPad, yHi + yPad, 5)} tick={axisStyle} width={72} label={{ value: `${label} / ${formatUnit(unit)}`, angle: -90, position: 'insideLeft', style: { ...axisStyle, textAnchor: 'middle' } }} />
           <ReferenceLine y={0} stroke="var(--color-line-strong)" />
           <Scatter data={data} fill="var(--color-ember-strong)" isAnimationActive={false}>
-            <ErrorBar dataKey="err" direction="y" width={6} stroke="var(--color-ink)" />
+            <ErrorBar dataKey="err" direction="y" width={6} stroke="var(--color-ink)" isAnimationActive={false} />
           </Scatter>
         </ScatterChart>
       </ResponsiveContainer>
