@@ -27,7 +27,7 @@ export function CertificatePreview({ data }: { data: CertificateData }) {
         <Row k="Item">{`${data.item.description}; ${data.item.maker} ${data.item.model}, serial number ${data.item.serialNumber}\nOn receipt: ${data.item.conditionOnReceipt}`}</Row>
         <Row k="Dates">{`Received ${data.dates.receipt}; calibrated ${data.dates.calibration.from}${data.dates.calibration.to ? ` to ${data.dates.calibration.to}` : ''}; issued ${data.dates.issue}`}</Row>
         <Row k="Method">{`${data.method.templateName}, version ${data.method.templateVersion}\n${data.method.description}`}</Row>
-        <Row k="Environment">{`Ambient temperature ${formatCondition(data.environment.temperature)}; relative humidity ${formatCondition(data.environment.humidity)}`}</Row>
+        <Row k="Environment">{`Ambient temperature ${formatCondition(data.environment.temperature)}; relative humidity ${formatCondition(data.environment.humidity)}${data.environment.note ? `. ${data.environment.note}` : ''}`}</Row>
       </dl>
       <table className="mt-4 w-full border-collapse">
         <caption className="mb-1 text-left font-semibold">Results: {data.resultLabel}</caption>
