@@ -20,17 +20,10 @@ import { ContributionsChart, HistogramChart, PlanckChart } from './charts';
 import { InputRow } from './input-row';
 import { MonteCarloPanel } from './monte-carlo-panel';
 import { formatDateTimeUtc } from '../../../../shared/format/date';
+import { useDebounced } from '../../../lib/use-debounced';
 
 type Correlation = { between: [string, string]; r: number };
 
-function useDebounced<T>(value: T, ms: number): T {
-  const [v, setV] = useState(value);
-  useEffect(() => {
-    const t = setTimeout(() => setV(value), ms);
-    return () => clearTimeout(t);
-  }, [value, ms]);
-  return v;
-}
 
 export function BudgetEditor({ point, definition, standards, reasons, today, editable, onSaved }: {
   point: Point;

@@ -18,7 +18,7 @@ import { BudgetPreview } from './budget-preview';
 import { DistributionField } from './distribution-field';
 import { EquationField } from './equation-field';
 import { NumberInput } from './number-input';
-import { useDebounced } from './use-debounced';
+import { useDebounced } from '../../../lib/use-debounced';
 
 type FormValues = z.input<typeof templateDefinitionSchema>;
 type Path = FieldPath<FormValues>;
