@@ -77,8 +77,17 @@ export class Xoshiro128StarStar implements UniformSource {
 
   /** One U(0,1) variate, never 0 or 1. */
   next(): number {
-    const a = this.nextUint32() >>> 6;
-    const b = this.nextUint32() >>> 6;
+    // Two steps of nextUint32 on local copies of the state (one load and store of each word).
+    let s0 = this.s0, s1 = this.s1, s2 = this.s2, s3 = this.s3;
+    let r = Math.imul(s1, 5);
+    const a = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
+    let t = s1 << 9;
+    s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
+    r = Math.imul(s1, 5);
+    const b = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
+    t = s1 << 9;
+    s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
+    this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
     return (a * TWO_POW_26 + b + 0.5) * TWO_POW_M52;
   }
 
@@ -102,11 +111,19 @@ export class Xoshiro128StarStar implements UniformSource {
   /** One N(0,1) variate (ziggurat; see the class comment). */
   nextNormal(): number {
     for (;;) {
-      const a = this.nextUint32();
-      const b = this.nextUint32();
+      let s0 = this.s0, s1 = this.s1, s2 = this.s2, s3 = this.s3;
+      let r = Math.imul(s1, 5);
+      const a = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
+      let t = s1 << 9;
+      s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
+      r = Math.imul(s1, 5);
+      const b = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
+      t = s1 << 9;
+      s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
+      this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
       const i = a & 127;
       const x = ((a >>> 8) * TWO_POW_28 + (b >>> 4) + 0.5) * TWO_POW_M52 * ZX[i];
-      if (x < ZX[i + 1]) return a & 128 ? -x : x;
+      if (x < ZX[i + 1]) return x * (1 - ((a >>> 6) & 2));
       const z = this.slowNormal(i, x);
       if (z === z) return a & 128 ? -z : z;
     }
@@ -140,7 +157,7 @@ export class Xoshiro128StarStar implements UniformSource {
       const i = a & 127;
       const x = ((a >>> 8) * TWO_POW_28 + b + 0.5) * TWO_POW_M52 * ZX[i];
       if (x < ZX[i + 1]) {
-        out[k++] = a & 128 ? -x : x;
+        out[k++] = x * (1 - ((a >>> 6) & 2));
         continue;
       }
       this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
