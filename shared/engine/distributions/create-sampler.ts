@@ -1,11 +1,11 @@
 import type { Distribution } from '../types';
-import { sampleGamma as sampleGammaImported } from './gamma';
+import { createGammaSampler as createGammaImported } from './gamma';
 import { resolveDistribution, type Resolved } from './resolve';
 import { fillStandardNormal as fillNormalImported, nextStandardNormal as nextNormalImported, type RandomSource } from './standard-normal';
 
 // Module-local copies of imported functions: some loaders (tsx) turn imported bindings into
 // getter calls, which costs in per-trial loops.
-const sampleGamma = sampleGammaImported, nextStandardNormal = nextNormalImported, fillStandardNormal = fillNormalImported;
+const createGammaSampler = createGammaImported, nextStandardNormal = nextNormalImported, fillStandardNormal = fillNormalImported;
 
 /** Fills a column of Monte Carlo draws of one input from a random source. */
 export interface ColumnSampler {
@@ -17,13 +17,17 @@ export interface ColumnSampler {
  * (Marsaglia–Tsang), x = μ + s·t (JCGM 101:2008 §6.4.9). z and χ² are drawn trial by trial so
  * the stream, and therefore the result, does not depend on the chunk size.
  */
-function fillScaledT(rng: RandomSource, out: Float64Array, n: number, mean: number, scale: number, dof: number): void {
-  const half = dof / 2;
-  for (let i = 0; i < n; i++) {
-    const z = nextStandardNormal(rng);
-    const chi2 = 2 * sampleGamma(rng, half);
-    out[i] = mean + scale * (z / Math.sqrt(chi2 / dof));
-  }
+function scaledTSampler(mean: number, scale: number, dof: number): ColumnSampler {
+  const gamma = createGammaSampler(dof / 2);
+  return {
+    fill(rng, out, n) {
+      for (let i = 0; i < n; i++) {
+        const z = rng.nextNormal ? rng.nextNormal() : nextStandardNormal(rng);
+        const chi2 = 2 * gamma(rng);
+        out[i] = mean + scale * (z / Math.sqrt(chi2 / dof));
+      }
+    },
+  };
 }
 
 function samplerFor(r: Resolved): ColumnSampler {
@@ -98,7 +102,7 @@ function samplerFor(r: Resolved): ColumnSampler {
     case 'readings': {
       const { mean, scale, dof } = r;
       if (scale === 0) return { fill: (_rng, out, n) => out.fill(mean, 0, n) };
-      return { fill: (rng, out, n) => fillScaledT(rng, out, n, mean, scale, dof) };
+      return scaledTSampler(mean, scale, dof);
     }
     case 'exponential': {
       // ξ = −μ ln r (JCGM 101 §6.4.10).
@@ -111,10 +115,10 @@ function samplerFor(r: Resolved): ColumnSampler {
       };
     }
     case 'gamma': {
-      const { shape, scale } = r;
+      const { scale } = r, gamma = createGammaSampler(r.shape);
       return {
         fill(rng, out, n) {
-          for (let i = 0; i < n; i++) out[i] = scale * sampleGamma(rng, shape);
+          for (let i = 0; i < n; i++) out[i] = scale * gamma(rng);
         },
       };
     }
