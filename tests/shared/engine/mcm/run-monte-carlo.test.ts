@@ -174,6 +174,31 @@ describe('coverage intervals: index conventions of JCGM 101 §7.7', () => {
     const r = K % 2 === 0 ? K / 2 : (K + 1) / 2;
     expect(coverageInterval(Float64Array.from(x), n, 0.9545, 'symmetric')).toEqual([sorted[r - 1], sorted[r + q - 1]]);
   });
+  it('stays exact when the sampled tail thresholds miss or tie (ties, sorted and adversarial orders)', () => {
+    // Reference: a full sort (the definition of the order statistics, JCGM 101 §7.7).
+    const check = (x: Float64Array, p: number) => {
+      const n = x.length, sorted = Float64Array.from(x).sort();
+      const q = Math.floor(p * n + 0.5), K = n - q;
+      let best = 0;
+      for (let i = 1; i < K; i++) if (sorted[i + q] - sorted[i] < sorted[best + q] - sorted[best]) best = i;
+      const copy = Float64Array.from(x);
+      expect(coverageInterval(copy, n, p, 'shortest')).toEqual([sorted[best], sorted[best + q]]);
+      const r = K % 2 === 0 ? K / 2 : (K + 1) / 2;
+      expect(coverageInterval(Float64Array.from(x), n, p, 'symmetric')).toEqual([sorted[r - 1], sorted[r + q - 1]]);
+    };
+    const n = 100_000;
+    // Ties: only three distinct values, so the sample's thresholds coincide.
+    check(Float64Array.from({ length: n }, (_, i) => (i % 7 === 0 ? 2 : i % 11 === 0 ? 3 : 1)), 0.9545);
+    // Already sorted, and sorted descending.
+    check(Float64Array.from({ length: n }, (_, i) => i * 0.5), 0.9545);
+    check(Float64Array.from({ length: n }, (_, i) => -i), 0.99);
+    // Adversarial: every value the strided sample reads is extreme, so its thresholds lie far
+    // from the true quantiles and the count check must send the work to the selection.
+    const stride = n / 8192;
+    const adv = Float64Array.from({ length: n }, (_, i) => i / n);
+    for (let j = 0; j < 8192; j++) adv[Math.floor(j * stride)] = j % 2 ? 1e6 + j : -1e6 - j;
+    check(adv, 0.9545);
+  });
 });
 
 describe('bounded memory beyond 2^20 trials (OutputAccumulator)', () => {
