@@ -77,17 +77,8 @@ export class Xoshiro128StarStar implements UniformSource {
 
   /** One U(0,1) variate, never 0 or 1. */
   next(): number {
-    // Two steps of nextUint32 on local copies of the state (one load and store of each word).
-    let s0 = this.s0, s1 = this.s1, s2 = this.s2, s3 = this.s3;
-    let r = Math.imul(s1, 5);
-    const a = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
-    let t = s1 << 9;
-    s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-    r = Math.imul(s1, 5);
-    const b = Math.imul((r << 7) | (r >>> 25), 9) >>> 6;
-    t = s1 << 9;
-    s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-    this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
+    const a = this.nextUint32() >>> 6;
+    const b = this.nextUint32() >>> 6;
     return (a * TWO_POW_26 + b + 0.5) * TWO_POW_M52;
   }
 
@@ -111,16 +102,8 @@ export class Xoshiro128StarStar implements UniformSource {
   /** One N(0,1) variate (ziggurat; see the class comment). */
   nextNormal(): number {
     for (;;) {
-      let s0 = this.s0, s1 = this.s1, s2 = this.s2, s3 = this.s3;
-      let r = Math.imul(s1, 5);
-      const a = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
-      let t = s1 << 9;
-      s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-      r = Math.imul(s1, 5);
-      const b = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
-      t = s1 << 9;
-      s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
-      this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
+      const a = this.nextUint32();
+      const b = this.nextUint32();
       const i = a & 127;
       const x = ((a >>> 8) * TWO_POW_28 + (b >>> 4) + 0.5) * TWO_POW_M52 * ZX[i];
       if (x < ZX[i + 1]) return x * (1 - ((a >>> 6) & 2));
