@@ -63,6 +63,25 @@ describe('app shell', () => {
     expect(empty.textContent).toMatch(/customer, item, model version/);
   });
 
+  it('an analyst moves between the jobs list and the customers page both ways (they share one customer list)', async () => {
+    const customer = { id: 'c1', organisation: 'Fernhill Optics (demo)', address: '', contactCount: 1, itemCount: 2 };
+    mockFetch({
+      'GET /api/me': () => json(200, meFor('analyst')),
+      'GET /api/jobs': () => json(200, { jobs: [], total: 0, page: 1, pageSize: 25 }),
+      'GET /api/customers': () => json(200, { customers: [customer] }),
+    });
+    renderApp('/app/jobs');
+    await screen.findByRole('heading', { level: 1, name: 'Calibration jobs' });
+    expect(await screen.findByRole('option', { name: customer.organisation })).toBeTruthy();
+    const nav = within(screen.getByRole('navigation', { name: 'Sections' }));
+    await userEvent.click(nav.getByRole('link', { name: /^Customers/ }));
+    await screen.findByRole('heading', { level: 1, name: 'Customers' });
+    expect(await screen.findByRole('link', { name: customer.organisation })).toBeTruthy();
+    await userEvent.click(nav.getByRole('link', { name: 'Calibration jobs' }));
+    await screen.findByRole('heading', { level: 1, name: 'Calibration jobs' });
+    expect(await screen.findByRole('option', { name: customer.organisation })).toBeTruthy();
+  });
+
   it('shows the laboratory details to the admin', async () => {
     mockFetch({ 'GET /api/me': () => json(200, meFor('admin')) });
     renderApp('/app/lab');

@@ -1,4 +1,7 @@
-/** Fetchers, query options and hooks of /api/jobs (list, options, detail, checks, create, update, submit). */
+/**
+ * Fetchers, query options and hooks of /api/jobs (list, options, detail, checks, create, update, submit).
+ * The customer list comes from the customers feature (`useCustomers`): one query per key, one shape.
+ */
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { CreateJob, UpdateJob } from '../../../../shared/schemas/jobs.schema';
 import { api } from '../../../lib/api-client';
@@ -20,10 +23,6 @@ export const useJobs = (f: JobFilters) => useQuery(jobsQueryOptions(f));
 
 export const jobOptionsQueryOptions = () => queryOptions({ queryKey: jobKeys.options(), queryFn: ({ signal }) => api.get<JobOptions>('/api/jobs/options', { signal }) });
 export const useJobOptions = () => useQuery(jobOptionsQueryOptions());
-
-export const customersQueryOptions = () =>
-  queryOptions({ queryKey: ['customers', 'list'] as const, queryFn: ({ signal }) => api.get<{ customers: Array<{ id: string; organisation: string }> }>('/api/customers', { signal }) });
-export const useCustomers = () => useQuery(customersQueryOptions());
 
 export const jobQueryOptions = (id: string) => queryOptions({ queryKey: jobKeys.detail(id), queryFn: ({ signal }) => api.get<JobDetail>(`/api/jobs/${id}`, { signal }) });
 export const useJob = (id: string) => useQuery(jobQueryOptions(id));

@@ -3,7 +3,8 @@ import { Link } from 'react-router';
 import { JOB_STATUSES, JOB_STATUS_LABELS } from '../../../../shared/schemas/jobs.schema';
 import { buttonClasses } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
-import { useCustomers, useJobs } from '../api/jobs';
+import { useCustomers } from '../../customers/api/customers';
+import { useJobs } from '../api/jobs';
 import { JobStatusBadge } from './job-status';
 
 /** Calibration jobs with filters (status, customer), text search (number, item, customer) and pages. */
@@ -33,7 +34,7 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
           Customer
           <select className="rounded-field border border-line-strong bg-surface px-2 py-1.5 font-normal" value={customerId} onChange={(e) => { setCustomerId(e.target.value); setPage(1); }}>
             <option value="">Any</option>
-            {customers.data?.customers.map((c) => <option key={c.id} value={c.id}>{c.organisation}</option>)}
+            {customers.data?.map((c) => <option key={c.id} value={c.id}>{c.organisation}</option>)}
           </select>
         </label>
         {canCreate && <Link to="/app/jobs/new" className={buttonClasses('primary', 'ml-auto')}>New job</Link>}

@@ -4,7 +4,8 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { TextField } from '../../../components/ui/text-field';
 import { ApiError } from '../../../lib/api-client';
-import { useCreateJob, useCustomers, useJobOptions } from '../api/jobs';
+import { useCustomers } from '../../customers/api/customers';
+import { useCreateJob, useJobOptions } from '../api/jobs';
 
 const sel = 'rounded-field border border-line-strong bg-surface px-3 py-2 text-base';
 
@@ -49,7 +50,7 @@ export function NewJobForm() {
         Customer
         <select className={sel} value={f.customerId} onChange={set('customerId')} required>
           <option value="">Choose…</option>
-          {customers.data?.customers.map((c) => <option key={c.id} value={c.id}>{c.organisation}</option>)}
+          {customers.data?.map((c) => <option key={c.id} value={c.id}>{c.organisation}</option>)}
         </select>
         {issue('customerId') && <span className="text-danger">✕ {issue('customerId')}</span>}
       </label>
