@@ -65,7 +65,7 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
                 <td className="py-1.5 pr-3">{j.itemLabel}</td>
                 <td className="py-1.5 pr-3"><JobStatusBadge status={j.status} /></td>
                 <td className="py-1.5 pr-3 text-right font-mono tabular-nums">{j.points}</td>
-                <td className="py-1.5 pr-3 font-mono">{j.calibratedOn ?? '—'}</td>
+                <td className="whitespace-nowrap py-1.5 pr-3 font-mono">{j.calibratedOn ?? '—'}</td>
                 <td className="py-1.5">{j.analyst}</td>
               </tr>
             ))}
