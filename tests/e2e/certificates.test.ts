@@ -62,6 +62,8 @@ describe('approve, e-mail, portal and verification in a real browser', () => {
     const issued = page.getByText(/^Certificate EMB-C-\d{4}-\d{4} issued$/);
     await issued.waitFor({ timeout: 90_000 });
     number = /EMB-C-\d{4}-\d{4}/.exec((await issued.textContent()) ?? '')![0];
+    // The approval form is at the foot of the page and the answer at its top: the answer is brought into view.
+    expect(await issued.evaluate((el) => { const r = el.getBoundingClientRect(); return r.top >= 0 && r.bottom <= window.innerHeight; })).toBe(true);
     await page.screenshot({ path: screenshotPath('cert-04-issued'), fullPage: false });
   }, 180_000);
 

@@ -1,9 +1,10 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router';
 import { Cautions } from '../../../components/ui/cautions';
 import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit } from '../../../../shared/format';
+import { JOB_STATUS_LABELS, type JobStatus } from '../../../../shared/schemas/jobs.schema';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
 import { CertificatePreview } from './certificate-preview';
@@ -24,6 +25,14 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
   const q = useReview(jobId);
   const [issued, setIssued] = useState<string | null>(null);
   const [rejected, setRejected] = useState(false);
+  // The forms are at the foot of a long page and vanish once used; the outcome is shown at the top.
+  // Bring it into view and give it focus, or the signatory is left looking at the preview with no answer.
+  const outcome = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!issued && !rejected) return;
+    outcome.current?.scrollIntoView?.({ block: 'start' });
+    outcome.current?.focus({ preventScroll: true });
+  }, [issued, rejected]);
   if (q.isPending) return <p className="text-ink-muted">Loading the job…</p>;
   if (q.isError && q.data === undefined) return <Notice tone="danger" label="The job could not be loaded" role="alert">{q.error.message}</Notice>;
   const d = q.data;
@@ -38,15 +47,19 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
         </Link>
         <h1 className="mt-2 text-2xl font-semibold">Review of job {d.job.number}</h1>
         <p className="mt-1 text-ink-muted">
-          {d.job.customer} · {d.job.itemLabel} · prepared by {d.job.analyst} · model “{d.template.name}”, version {d.template.version} · status: <strong className="text-ink">{d.job.status}</strong>
+          {d.job.customer} · {d.job.itemLabel} · prepared by {d.job.analyst} · model “{d.template.name}”, version {d.template.version} · status: <strong className="text-ink">{JOB_STATUS_LABELS[d.job.status as JobStatus] ?? d.job.status}</strong>
         </p>
       </div>
-      {issued && (
-        <Notice tone="ok" label={`Certificate ${issued} issued`} role="status">
-          The signed PDF is stored and queued for e-mail to the customer’s contacts. <Link className="underline" to="/app/certificates">See the issued certificates</Link>.
-        </Notice>
+      {(issued || rejected) && (
+        <div ref={outcome} tabIndex={-1} className="scroll-mt-4 outline-none">
+          {issued && (
+            <Notice tone="ok" label={`Certificate ${issued} issued`} role="status">
+              The signed PDF is stored and queued for e-mail to the customer’s contacts. <Link className="underline" to="/app/certificates">See the issued certificates</Link>.
+            </Notice>
+          )}
+          {rejected && <Notice tone="info" label="Sent back to the analyst" role="status">The job is a draft again; the analyst sees your comment.</Notice>}
+        </div>
       )}
-      {rejected && <Notice tone="info" label="Sent back to the analyst" role="status">The job is a draft again; the analyst sees your comment.</Notice>}
       {d.amends && (
         <Notice tone="warn" label={`Amendment of certificate ${d.amends.certificateNumber}`}>
           Reason: {d.amends.reason.replace(/[.\s]+$/, '')}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
