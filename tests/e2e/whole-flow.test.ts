@@ -317,7 +317,7 @@ describe('the whole job, end to end, as each of its users', () => {
     await row.getByLabel(/Reason for the amendment/).fill('The item’s serial number was printed without its suffix; corrected.');
     await shot('qm-amend');
     await row.getByRole('button', { name: 'Open the amendment' }).click();
-    const opened = page.getByText(/Amendment opened: job (EMB-\d{4}-\d{4}(?:\S*)?) is a new draft revision/);
+    const opened = page.getByRole('status').getByText(/job (EMB-\d{4}-\d{4}(?:\S*)?) is a new draft revision/);
     await opened.waitFor();
     const revision = /job (\S+) is a new draft/.exec((await opened.textContent()) ?? '')![1]!;
     await shot('qm-amendment-opened');
