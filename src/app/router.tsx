@@ -85,6 +85,9 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
     {
       id: 'root',
       errorElement: <RouteErrorPage />,
+      // Shown while the first page's loaders run (the session check); without it React Router
+      // renders nothing and warns in the console on every page load.
+      hydrateFallbackElement: <p role="status" className="p-6 text-sm text-ink-muted">Loading Emberline…</p>,
       children: [
         {
           element: <PublicLayout />,

@@ -1,5 +1,5 @@
 import { screen, within } from '@testing-library/react';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { CAUTIONS } from '../../src/components/ui/cautions';
 import { json, meFor, mockFetch, renderApp, unauthorized } from './render-app';
 
@@ -82,5 +82,19 @@ describe('sign-in page when signed out', () => {
     const asked = spy.mock.calls.map(([input]) => new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://localhost:3000').pathname);
     expect(asked).toContain('/api/auth/get-session');
     expect(asked).not.toContain('/api/me');
+  });
+});
+
+describe('first load', () => {
+  it('while the first page’s loaders run, says it is loading instead of a blank page (and React Router does not warn)', async () => {
+    const warn = vi.spyOn(console, 'warn');
+    let answer: (r: Response) => void = () => {};
+    mockFetch({ 'GET /api/me': () => new Promise<Response>((resolve) => { answer = resolve; }) });
+    renderApp('/app/certificates');
+    expect((await screen.findByRole('status')).textContent).toBe('Loading Emberline…');
+    answer(json(200, meFor('signatory')));
+    expect(await screen.findByRole('heading', { level: 1, name: 'Issued certificates' })).toBeTruthy();
+    expect(warn.mock.calls.flat().join(' ')).not.toMatch(/HydrateFallback/);
+    warn.mockRestore();
   });
 });
