@@ -3,7 +3,7 @@
 import { render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { evaluateGum } from '../../shared/engine';
-import { BudgetTable } from '../../src/features/budgets/components/budget-table';
+import { BudgetTable, formatShare } from '../../src/features/budgets/components/budget-table';
 import { inDisplayUnit } from '../../shared/format/units';
 import { fromDisplay, toDisplay, unitChoices } from '../../src/features/budgets/components/units';
 
@@ -26,8 +26,15 @@ describe('budget table', () => {
     expect(rowB.textContent).toContain('64 %');
     const bar = rowB.querySelector('span.bg-ember') as HTMLElement;
     expect(parseFloat(bar.style.width)).toBeCloseTo(64, 9);
-    // u_c = 0.5 K
-    expect(table.querySelector('tfoot')!.textContent).toContain('0.500');
+    // u_c = 0.5 K, with its unit
+    expect(table.querySelector('tfoot')!.textContent).toContain('0.500 K');
+  });
+
+  it('says "< 0.01 %" for a share too small to matter instead of printing its digits', () => {
+    expect(formatShare(0.64)).toBe('64 %');
+    expect(formatShare(8.8e-4)).toBe('0.088 %');
+    expect(formatShare(8.0e-7)).toBe('< 0.01 %'); // was "0.000080 %", wider than its column
+    expect(formatShare(0)).toBe('0.0 %');
   });
 });
 

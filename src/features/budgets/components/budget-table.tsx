@@ -6,6 +6,16 @@ import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
 
 /**
+ * Share of u²(y) in per cent, two significant digits; below 0.01 % it says so instead of printing
+ * 0.000080 %, a figure that means nothing more and overran the bar beside it.
+ */
+export function formatShare(share: number): string {
+  const pc = share * 100;
+  if (pc > 0 && pc < 0.01) return '< 0.01 %';
+  return `${formatNumber(pc, { digits: 2, notation: 'fixed' })} %`;
+}
+
+/**
  * The GUM budget (JCGM 100 §5.1, Annex G): per input its estimate, standard uncertainty,
  * distribution, sensitivity coefficient c_i, contribution |c_i| u(x_i), degrees of freedom and
  * share of u²(y), as a number and a bar. Estimates, u(x_i) and c_i are given in the unit chosen
@@ -42,7 +52,7 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
             <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>
             <td className="py-1">
               <div className="flex items-center gap-2">
-                <span className="w-16 whitespace-nowrap text-right">{formatNumber(b.share * 100, { digits: 2, notation: "fixed" })} %</span>
+                <span className="w-20 shrink-0 whitespace-nowrap text-right">{formatShare(b.share)}</span>
                 <span className="h-2 flex-1 rounded-sm bg-sunken" aria-hidden="true">
                   <span className="block h-2 rounded-sm bg-ember" style={{ width: `${Math.min(100, Math.max(0, b.share * 100))}%` }} />
                 </span>
@@ -56,7 +66,7 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
         <tr>
           <td className="py-1.5 pr-2 font-sans font-semibold italic">{result.measurand}</td>
           <td className="py-1.5 pr-2 text-right font-semibold">{num(result.gum.y, 7)} <span className="text-ink-muted">{y}</span></td>
-          <td className="py-1.5 pr-2 text-right font-semibold">{num(result.gum.u, 3)}</td>
+          <td className="py-1.5 pr-2 text-right font-semibold">{num(result.gum.u, 3)} <span className="text-ink-muted">{y}</span></td>
           <td className="py-1.5 pr-2 font-sans text-ink-muted" colSpan={3}>
             u<sub>c</sub>(y); ν<sub>eff</sub> = {result.gum.nuEff === null ? 'not applicable (correlated inputs)' : result.gum.nuEff === 'infinite' ? '∞' : formatNumber(result.gum.nuEff, { digits: 3 })}
           </td>
