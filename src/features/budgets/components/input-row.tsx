@@ -78,7 +78,9 @@ export function InputRow(props: {
   if (d?.type === 'readings' && d.values.length >= 2) {
     const shownValues = d.values.map((v) => toDisplay('mean', v, si, shownUnit));
     const a = typeA(shownValues);
-    const f = (x: number) => formatNumber(x, { digits: 5 });
+    // Each figure with its unit, kept on one line with it (no-break space).
+    const unit = formatUnit(shownUnit ?? si ?? '');
+    const f = (x: number) => `${formatNumber(x, { digits: 5 })}${unit && unit !== '1' ? `\u00a0${unit}` : ''}`;
     readingsSummary = `n = ${a.n}, mean = ${f(a.mean)}, s = ${f(a.s)}, s/√n = ${f(a.u)}, ν = ${a.dof}`;
   }
   return (
