@@ -157,3 +157,26 @@ export function inDisplayUnit(b: { estimate: number; u: number; c: number }, si:
     return { estimate: b.estimate, u: b.u, c: b.c, unit: label(si) };
   }
 }
+
+/**
+ * The unit of a sensitivity coefficient c_i = ∂y/∂x_i (JCGM 100:2008 §5.1.3): the unit of y per
+ * unit of x_i, both as shown. Empty when the two units have the same size (K per °C: a pure
+ * number); the unit of y alone for a dimensionless input; "K/µm" for one unit per another, and
+ * "W m⁻² sr⁻¹ nm⁻¹ K⁻¹" when y's unit is itself a product (SI Brochure, 9th ed. (2019) §5.4.6:
+ * one solidus at most, products with negative exponents).
+ */
+export function sensitivityUnit(yUnit: string, xUnit: string): string {
+  const y = formatUnit(yUnit) === '1' ? '' : formatUnit(yUnit);
+  const x = formatUnit(xUnit) === '1' ? '' : formatUnit(xUnit);
+  if (x === '') return y;
+  if (x === y) return '';
+  try {
+    if (convertInterval(1, x, y) === 1) return '';
+  } catch {
+    /* different quantities: y per x */
+  }
+  const single = !/\s/.test(x) && !/[⁰¹²³⁴⁵⁶⁷⁸⁹⁻]/.test(x);
+  if (y === '') return single ? `${x}⁻¹` : `1/(${x})`;
+  if (!single) return `${y}/(${x})`;
+  return /\s/.test(y) ? `${y} ${x}⁻¹` : `${y}/${x}`;
+}

@@ -13,7 +13,7 @@
  */
 import { reportResult, type EvaluationResult } from '../../../shared/engine';
 import { certificateSchema, type CertificateData, type CertificateInput } from '../../../shared/schemas/certificate.schema';
-import { convert, convertInterval, formatQuantity, formatUnit } from '../../../shared/format';
+import { convert, convertInterval, formatQuantity, formatUnit, sensitivityUnit } from '../../../shared/format';
 import type { PointInput } from '../../../shared/schemas/jobs.schema';
 import type { TemplateDefinition } from '../../../shared/schemas/template.schema';
 import { reportedResult } from '../jobs/checks';
@@ -137,6 +137,8 @@ export function assembleCertificate(src: CertificateSource): AssembleResult {
         u: d.u(b.u),
         distribution: b.distribution,
         c: shown.interval(d.c(b.c)),
+        // Printed beside c_i: y per x_i as shown (K/µm; nothing for K per °C; y's unit for a dimensionless input).
+        cUnit: sensitivityUnit(shown.unit, d.unit),
         contribution: shown.interval(b.contribution),
         dof: b.dof,
         share: Math.min(1, Math.max(0, b.share)),

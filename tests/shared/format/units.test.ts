@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import {
   celsiusToKelvin, convert, convertInterval, formatQuantity, formatUnit, kelvinToCelsius,
   metresToMicrometres, metresToNanometres, micrometresToMetres, nanometresToMetres,
-  perMetreToPerMicrometre, perMetreToPerNanometre, perNanometreToPerMetre, MINUS,
+  perMetreToPerMicrometre, perMetreToPerNanometre, perNanometreToPerMetre, MINUS, sensitivityUnit,
 } from '../../../shared/format';
 
 describe('formatUnit', () => {
@@ -71,5 +71,22 @@ describe('SI conversions', () => {
   it('refuses unknown units and mixed quantities', () => {
     expect(() => convert(1, 'K', 'nm')).toThrow(/different quantities/);
     expect(() => convert(1, 'furlong', 'm')).toThrow(/Unknown unit/);
+  });
+});
+
+describe('sensitivityUnit (c_i = ∂y/∂x_i, JCGM 100:2008 §5.1.3)', () => {
+  it('is y per x, empty when both have the same size, y alone for a dimensionless input', () => {
+    expect(sensitivityUnit('K', 'µm')).toBe('K/µm');
+    expect(sensitivityUnit('K', '°C')).toBe(''); // a difference of 1 °C is 1 K (SI Brochure §2.3.1)
+    expect(sensitivityUnit('K', 'K')).toBe('');
+    expect(sensitivityUnit('K', '1')).toBe('K');
+    expect(sensitivityUnit('K', '')).toBe('K');
+    expect(sensitivityUnit('', 'K')).toBe('K⁻¹');
+    expect(sensitivityUnit('', '')).toBe('');
+  });
+
+  it('keeps one solidus at most (SI Brochure §5.4.6)', () => {
+    expect(sensitivityUnit('W m-2 sr-1 nm-1', 'K')).toBe('W m⁻² sr⁻¹ nm⁻¹ K⁻¹');
+    expect(sensitivityUnit('K', 'W m-2 sr-1 nm-1')).toBe('K/(W m⁻² sr⁻¹ nm⁻¹)');
   });
 });

@@ -1,6 +1,6 @@
 import type { EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
-import { formatUnit, inDisplayUnit } from '../../../../shared/format/units';
+import { formatUnit, inDisplayUnit, sensitivityUnit } from '../../../../shared/format/units';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
@@ -47,7 +47,7 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
             <td className="py-1 pr-2 text-right">{num(d.estimate, 7)} <span className="text-ink-muted">{d.unit}</span></td>
             <td className="py-1 pr-2 text-right">{num(d.u, 3)} <span className="text-ink-muted">{d.unit}</span></td>
             <td className="py-1 pr-2 font-sans">{b.distribution}</td>
-            <td className="py-1 pr-2 text-right">{num(d.c, 4)}</td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.c, 4)} <span className="text-ink-muted">{sensitivityUnit(y, d.unit)}</span></td>
             <td className="py-1 pr-2 text-right">{num(b.contribution, 3)}</td>
             <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>
             <td className="py-1">

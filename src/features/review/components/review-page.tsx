@@ -3,7 +3,7 @@ import { Link } from 'react-router';
 import { Cautions } from '../../../components/ui/cautions';
 import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
-import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit } from '../../../../shared/format';
+import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
 import { JOB_STATUS_LABELS, type JobStatus } from '../../../../shared/schemas/jobs.schema';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
@@ -132,7 +132,7 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <span className="text-ink-muted">{d.unit}</span></td>
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <span className="text-ink-muted">{d.unit}</span></td>
                           <td className="py-1 pr-2">{b.distribution}</td>
-                          <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)}</td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)} <span className="text-ink-muted">{sensitivityUnit(r.unit, d.unit)}</span></td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{formatNumber(b.share * 100, { decimals: 1, notation: 'fixed' })} %</td>
                         </tr>
