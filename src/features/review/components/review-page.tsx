@@ -5,6 +5,7 @@ import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
 import { JOB_STATUS_LABELS, type JobStatus } from '../../../../shared/schemas/jobs.schema';
+import { Sym } from '../../templates/components/math-tex';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
 import { CertificatePreview } from './certificate-preview';
@@ -128,7 +129,10 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                         const d = inDisplayUnit(b, input?.unit ?? '', input?.displayUnit);
                         return (
                         <tr key={b.symbol} className="border-b border-line">
-                          <td className="py-1 pr-2 font-mono">{b.symbol}</td>
+                          <td className="py-1 pr-2">
+                            {/* Typeset as in the certificate's annex (ε_bb, λ_eff, δT_res); the model's identifier is the tooltip. */}
+                            <Sym name={b.symbol} />
+                          </td>
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <span className="text-ink-muted">{d.unit}</span></td>
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <span className="text-ink-muted">{d.unit}</span></td>
                           <td className="py-1 pr-2">{b.distribution}</td>
