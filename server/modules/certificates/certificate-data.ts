@@ -248,7 +248,8 @@ export function assembleCertificate(src: CertificateSource): AssembleResult {
     environment: {
       temperature: fmtEnv(env.temperature!),
       humidity: fmtEnv(env.humidity!),
-      note: 'Environmental conditions are stated with their expanded uncertainty (k = 2).',
+      // No-break spaces keep "k = 2" on one line (it broke as "(k" / "= 2)" in the preview).
+      note: 'Environmental conditions are stated with their expanded uncertainty (k\u00a0=\u00a02).',
     },
     resultLabel: def.certificate.resultLabel,
     results,

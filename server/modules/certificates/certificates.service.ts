@@ -43,7 +43,8 @@ export class IssueRefusedError extends AppError {
 }
 
 /** Placeholder number on the review page's preview; the real one is drawn when the certificate is issued. */
-export const PREVIEW_NUMBER = 'EMB-C-(number given at issue)';
+/** Stands for the number in the review page's preview: the heading reads "Calibration certificate (number given at issue)". */
+export const PREVIEW_NUMBER = '(number given at issue)';
 
 export type CertificatesDeps = {
   db: Db;
