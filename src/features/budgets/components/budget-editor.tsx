@@ -6,6 +6,7 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { evaluateGum, EngineError, type EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
+import { roundUncertainty } from '../../../../shared/format/result';
 import { formatUnit } from '../../../../shared/format/units';
 import { pointBudget } from '../../../../shared/jobs/point-budget';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
@@ -194,19 +195,37 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
   );
 }
 
+/**
+ * Figures rounded to the decimal place of an uncertainty's second significant digit (GUM 7.2.6;
+ * JCGM 101:2008 §7.9), as the value beside it is; four significant digits where a power of ten
+ * would be needed.
+ */
+function atPlaceOf(uncertainty: number) {
+  const { lastDigitExponent: e } = roundUncertainty(uncertainty);
+  return (x: number) => {
+    const m = Math.max(Math.abs(x), uncertainty);
+    if (!(uncertainty > 0) || m >= 1e6 || m < 1e-3) return formatNumber(x, { digits: 4 });
+    const xr = e > 0 ? Math.round(x / 10 ** e) * 10 ** e : x;
+    return formatNumber(xr, { decimals: Math.max(0, -e), notation: 'fixed' });
+  };
+}
+
 function StoredResult({ point }: { point: Point }) {
   const r = point.result!;
   const rep = point.reported!;
   const unit = formatUnit(r.unit);
-  const f = (x: number) => formatNumber(x, { digits: 4 });
+  // The intervals at the decimal place of their U, not 4 significant digits beside a U of two.
+  const g = atPlaceOf(r.gum.U);
+  const m = r.mcm ? atPlaceOf(r.mcm.u) : g;
+  const mi = r.mcm ? atPlaceOf((r.mcm.interval[1] - r.mcm.interval[0]) / 2) : g;
   return (
     <div className="mt-1 text-sm">
       <p className="font-mono tabular-nums">
-        {r.measurand} = {r.reported.value} {unit}, U = {r.reported.U} {unit} (k = {r.reported.k}) · GUM interval [{f(r.gum.interval[0])}, {f(r.gum.interval[1])}] {unit}
+        {r.measurand} = {r.reported.value} {unit}, U = {r.reported.U} {unit} (k = {r.reported.k}) · GUM interval [{g(r.gum.interval[0])}, {g(r.gum.interval[1])}] {unit}
       </p>
       {r.mcm && (
         <p className="font-mono tabular-nums">
-          Monte Carlo: y = {f(r.mcm.y)} {unit}, u = {f(r.mcm.u)} {unit}, {r.mcm.intervalKind} interval [{f(r.mcm.interval[0])}, {f(r.mcm.interval[1])}] {unit}
+          Monte Carlo: y = {m(r.mcm.y)} {unit}, u = {m(r.mcm.u)} {unit}, {r.mcm.intervalKind} interval [{mi(r.mcm.interval[0])}, {mi(r.mcm.interval[1])}] {unit}
         </p>
       )}
       {r.validation ? (
