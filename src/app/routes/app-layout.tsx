@@ -41,7 +41,7 @@ export function AppLayout() {
       </header>
       <div className="flex flex-1 flex-col md:flex-row">
         {sections.length > 0 && (
-          <nav aria-label="Sections" className="bg-night md:w-60 md:shrink-0">
+          <nav aria-label="Sections" className="bg-night md:w-64 md:shrink-0">
             <ul className="flex flex-wrap gap-1 p-3 md:flex-col">
               {sections.map((section) => (
                 <li key={section.id}>
@@ -58,7 +58,7 @@ export function AppLayout() {
                   >
                     <span>{section.label}</span>
                     {isViewOnly(section, user.role!) && (
-                      <span className="text-xs font-normal text-night-ink-muted">
+                      <span className="shrink-0 whitespace-nowrap text-xs font-normal text-night-ink-muted">
                         <span className="sr-only">, </span>view only
                       </span>
                     )}
