@@ -21,7 +21,7 @@ export function StandardsList({ canEdit }: { canEdit: boolean }) {
       <div className="flex flex-wrap items-end gap-3">
         <label className="flex flex-col gap-1 text-sm font-semibold text-ink">
           Search
-          <input type="search" className={selectClass} placeholder="Name, serial or certificate" value={filters.q ?? ''} onChange={set('q')} />
+          <input type="search" className={`${selectClass} w-64`} placeholder="Name, serial or certificate" value={filters.q ?? ''} onChange={set('q')} />
         </label>
         <label className="flex flex-col gap-1 text-sm font-semibold text-ink">
           Kind
