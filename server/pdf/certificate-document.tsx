@@ -15,7 +15,7 @@ import { Document, Page, StyleSheet, Text, View, type Styles } from '@react-pdf/
 import type { CertificateAnnex, CertificateData, CertificateResultPoint, ConformityResult } from '../../shared/schemas/certificate.schema';
 import { MONO, SANS } from './fonts';
 import { coverageProbability, dateRange, dateTimeUtc, dof, fixed, longDate, NBSP, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
-import { formatCondition } from '../../shared/format';
+import { formatCondition, formatUnit } from '../../shared/format';
 import { McmHistogram } from './histogram';
 import { palette, size } from './theme';
 
@@ -347,7 +347,7 @@ function BudgetTable({ annex, unit }: { annex: CertificateAnnex; unit: string })
         { title: <Text>Estimate <Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 62, num: true, cell: (r) => withUnit(num(r.estimate), r.unit) },
         { title: <Text><Text style={{ fontStyle: 'italic' }}>u</Text>(<Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>)</Text>, width: 58, num: true, cell: (r) => withUnit(num(r.u, 2), r.unit) },
         { title: 'Distribution', width: 52, cell: (r) => r.distribution },
-        { title: <Text><Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 58, num: true, cell: (r) => withUnit(num(r.c, 3), r.cUnit ?? '') },
+        { title: <Text><Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 72, num: true, cell: (r) => (r.cUnit ? `${num(r.c, 3)} ${formatUnit(r.cUnit)}` : num(r.c, 3)) }, // "0.00216 K/µm" fits; a longer one breaks at the plain space before its unit, never inside the number
         { title: <Text>|<Text style={{ fontStyle: 'italic' }}>c</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>|<Text style={{ fontStyle: 'italic' }}>u</Text>(<Text style={{ fontStyle: 'italic' }}>x</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text>)</Text>, width: 60, num: true, cell: (r) => withUnit(num(r.contribution, 2), unit) },
         { title: <Text><Text style={{ fontStyle: 'italic' }}>ν</Text><Text style={{ fontSize: 5.6, verticalAlign: 'sub' }}>i</Text></Text>, width: 24, num: true, cell: (r) => dof(r.dof) },
         { title: 'Share', width: 36, num: true, cell: (r) => percent(r.share) },
