@@ -12,6 +12,8 @@ import { CertificatePreview } from './certificate-preview';
 
 type Reported = { method: string; y: number; U: number; k: number | null; note: string | null } | null;
 type Result = {
+  /** The measurand's symbol in the model (E, T_90 …). */
+  measurand?: string;
   unit: string;
   gum: { y: number; u: number; U: number; k: number; coverage: number; budget: Array<{ symbol: string; estimate: number; u: number; c: number; contribution: number; share: number; distribution: string }> };
   mcm: { trials: number; y: number; u: number; interval: [number, number] } | null;
@@ -104,6 +106,11 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
               ) : (
                 <>
                   <p className="mt-1 font-mono tabular-nums">
+                    {r.measurand && (
+                      <>
+                        <Sym name={r.measurand} className="font-sans" /> ={' '}
+                      </>
+                    )}
                     {rep && rep.k !== null ? formatResult(rep.y, rep.U, r.unit, rep.k, r.gum.coverage) : rep ? `${formatValueAndU(rep.y, rep.U, r.unit)} (Monte Carlo interval, ${formatCoverageProbability(r.gum.coverage)})` : ''}
                     {' · '}result {p.current ? 'current' : 'out of date'}
                   </p>
