@@ -71,7 +71,7 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
           <dt className="text-ink-muted">Environment</dt>
           <dd className="font-mono tabular-nums">
             {j.environment.temperature ? `${j.environment.temperature.value} °C${j.environment.temperature.u !== undefined ? ` (u = ${j.environment.temperature.u} °C)` : ''}` : '—'}
-            {j.environment.humidity ? `, ${j.environment.humidity.value} %rh${j.environment.humidity.u !== undefined ? ` (u = ${j.environment.humidity.u} %)` : ''}` : ''}
+            {j.environment.humidity ? `; relative humidity ${j.environment.humidity.value} %${j.environment.humidity.u !== undefined ? ` (u = ${j.environment.humidity.u} %)` : ''}` : ''}
           </dd>
         </dl>
       </header>
