@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useMemo } from 'react';
 import { EngineError, evaluateGum, type EvaluationResult } from '../../../../shared/engine';
 import { api, ApiError } from '../../../lib/api-client';
-import { formatCoverageFactor, formatNumber, formatQuantity, formatResult, formatUnit } from '../../../../shared/format';
+import { formatCoverageFactor, formatNumber, formatQuantity, formatResult, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
 import { budgetFromTemplate, type TemplateDefinition } from '../../../../shared/schemas/template.schema';
 import { Notice } from '../../../components/ui/notice';
 import { MathTex, Sym } from './math-tex';
@@ -57,7 +57,7 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
     return <Notice tone="warn" label="The model cannot be evaluated yet">{out && 'error' in out ? out.error : ''}</Notice>;
   }
   const { gum, unit } = out.result;
-  const units = new Map(definition.inputs.map((i) => [i.symbol, i.unit ?? '']));
+  const inputs = new Map(definition.inputs.map((i) => [i.symbol, i]));
   const ySym = definition.measurand.symbol;
   const nuEff = gum.nuEff === 'infinite' ? '∞' : gum.nuEff === null ? 'not applicable (correlated inputs)' : formatNumber(gum.nuEff, { digits: 3 });
   return (
@@ -79,15 +79,17 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
         </thead>
         <tbody>
           {gum.budget.map((row) => {
-            const u = units.get(row.symbol) ?? '';
-            const cUnit = [formatUnit(unit), u && u !== '1' ? `/${formatUnit(u)}` : ''].join('').replace(/^\//, '1/');
+            // In the unit the model shows the input in (°C, µm), as its defaults are typed; the engine's figures are SI.
+            const input = inputs.get(row.symbol);
+            const d = inDisplayUnit(row, input?.unit ?? '', input?.displayUnit);
+            const cUnit = sensitivityUnit(unit, d.unit);
             return (
               <tr key={row.symbol} className="border-b border-line align-baseline">
                 <th scope="row" className="py-1 pr-2 text-left font-normal"><Sym name={row.symbol} /></th>
-                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.estimate, u === '1' ? '' : u, row.estimate === 0 ? {} : { digits: 6 })}</td>
-                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.u, u === '1' ? '' : u, { digits: 3 })}</td>
+                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(d.estimate, d.unit, d.estimate === 0 ? {} : { digits: 6 })}</td>
+                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(d.u, d.unit, { digits: 3 })}</td>
                 <td className="px-2 text-ink-muted">{DIST_WORDS[row.distribution] ?? row.distribution}</td>
-                <td className="numeric px-2 whitespace-nowrap" title={cUnit}>{n3(row.c)}</td>
+                <td className="numeric px-2 whitespace-nowrap">{n3(d.c)}{cUnit && <span className="text-ink-muted"> {cUnit}</span>}</td>
                 <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.contribution, unit === '1' ? '' : unit, { digits: 3 })}</td>
                 <td className="numeric px-2">{row.dof === 'infinite' ? '∞' : formatNumber(row.dof, { digits: 3 })}</td>
                 <td className="pl-2">
