@@ -83,7 +83,7 @@ export function HistogramChart({ result }: { result: EvaluationResult }) {
         </ComposedChart>
       </ResponsiveContainer>
       <figcaption className="text-xs text-ink-muted">
-        Bars: {formatNumber(result.mcm.trials, { decimals: 0, notation: 'fixed' })} Monte Carlo trials (seed {result.mcm.seed}), shaded: their {result.mcm.intervalKind} coverage interval (solid lines). Curve: the GUM normal distribution N(y, u²), dashed lines its interval y ± U.
+        Bars: {formatNumber(result.mcm.trials, { decimals: 0, notation: 'fixed' })} Monte Carlo trials (seed {result.mcm.seed}), shaded: their {result.mcm.intervalKind} coverage interval (solid lines). Curve: the GUM normal distribution N(y, u²), dashed lines its interval <span className="whitespace-nowrap">y ± U</span>.
       </figcaption>
     </figure>
   );
