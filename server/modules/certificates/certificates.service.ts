@@ -161,6 +161,10 @@ export function createCertificatesService(deps: CertificatesDeps) {
       const cert = await db.transaction(async (tx) => {
         await deps.jobs.transitionJob(tx, jobId, 'submitted', 'approved', actor);
         await deps.jobs.transitionJob(tx, jobId, 'approved', 'issued', actor);
+        // Audit rows carry the time they are written, after the job's transitions (which take the
+        // clock themselves); `now`, the signing time printed on the certificate, lies before the
+        // rendering and listed them before the job's approval.
+        const at = clock();
         const row = await repo.insert(tx, {
           number,
           jobId,
@@ -182,7 +186,7 @@ export function createCertificatesService(deps: CertificatesDeps) {
           entity: 'certificate',
           entityId: row.id,
           after: { number, jobId, customerId: row.customerId, pdfSha256, pdfSize: pdf.length, signingFingerprint: identity.fingerprint, amends: amendment?.certificateNumber ?? null },
-          at: now,
+          at,
         });
         if (amendment?.status === 'open') {
           const old = await repo.lock(tx, amendment.certificateId);
@@ -197,14 +201,14 @@ export function createCertificatesService(deps: CertificatesDeps) {
             entityId: amendment.certificateId,
             before: { status: 'current' },
             after: { status: 'superseded', supersededBy: number, reason: amendment.reason },
-            at: now,
+            at,
           });
         }
         for (const c of contacts) {
           const mail = mailFor(data, c.name, pdfSha256);
           const queued = await deps.outbox.enqueue({ to: [c.email], ...mail, attachments: [{ filename: `${number}.pdf`, contentType: 'application/pdf', content: pdf }] }, tx);
           await repo.insertMail(tx, { certificateId: row.id, outboxId: queued.id, recipient: c.email, createdAt: now });
-          await recordAudit(tx, { actor: auditActor(actor), action: 'queue_email', entity: 'certificate', entityId: row.id, after: { outboxId: queued.id, to: c.email, subject: mail.subject }, at: now });
+          await recordAudit(tx, { actor: auditActor(actor), action: 'queue_email', entity: 'certificate', entityId: row.id, after: { outboxId: queued.id, to: c.email, subject: mail.subject }, at });
         }
         return row;
       });
