@@ -5,6 +5,7 @@ import helmet from 'helmet';
 import { toNodeHandler } from 'better-auth/node';
 import type { AppDeps } from './context';
 import { loadSession } from './auth/require-role';
+import { clearSessionCacheAfterWrites } from './auth/session-cache';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { registerModules } from './modules';
 import { clientAddressHeader } from './security/client-address';
@@ -50,12 +51,17 @@ export function createApp(deps: AppDeps, options: CreateAppOptions = {}): expres
   app.use(clientAddressHeader());
   // Failed sign-ins are limited per address before better-auth sees them (server/security).
   app.post('/api/auth/sign-in/email', signInRateLimit(deps.config.signInRateLimit));
+  // Sign-out, password and session changes: forget the remembered session look-ups.
+  app.use('/api/auth', clearSessionCacheAfterWrites(deps.sessionCache));
   // better-auth reads the raw body itself: mount it before express.json().
   app.all('/api/auth/{*any}', toNodeHandler(deps.auth));
 
   const api = Router();
   api.use(express.json({ limit: '5mb' }));
-  api.use(loadSession(deps.auth));
+  api.use(loadSession(deps.auth, deps.sessionCache, deps.clock));
+  // Role changes, deactivation, password resets and set passwords end sessions: forget the
+  // look-ups too (every users service call that revokes sessions is under these two paths).
+  api.use(['/users', '/invitations'], clearSessionCacheAfterWrites(deps.sessionCache));
   registerModules(api, deps);
   api.use(apiNotFound);
   app.use('/api', api);

@@ -2,6 +2,7 @@ import type { Config } from './config/env';
 import type { Database } from './db/client';
 import { createAuth, type Auth } from './auth/auth';
 import { resolveAuthSecret } from './auth/secret';
+import { createSessionCache, type SessionCache } from './auth/session-cache';
 import type { Mailer } from './mail/mailer';
 import { createOutbox, type Outbox } from './mail/outbox';
 import type { Logger } from './logger';
@@ -15,6 +16,8 @@ export type AppDeps = {
   config: Config;
   database: Database;
   auth: Auth;
+  /** Recent session look-ups of this instance (server/auth/session-cache.ts). */
+  sessionCache: SessionCache;
   mailer: Mailer;
   outbox: Outbox;
   /** The time; injectable so tests can move it. */
@@ -50,5 +53,6 @@ export function createAppDeps(opts: {
     messageIdDomain: new URL(opts.config.baseUrl).hostname || 'emberline.invalid',
   });
   const tasks = createTaskRunner({ config: opts.config, database: opts.database, logger: opts.logger });
-  return { config: opts.config, database: opts.database, auth, mailer: opts.mailer, outbox, clock, logger: opts.logger, tasks };
+  const sessionCache = createSessionCache(opts.config.sessionCacheMs);
+  return { config: opts.config, database: opts.database, auth, sessionCache, mailer: opts.mailer, outbox, clock, logger: opts.logger, tasks };
 }

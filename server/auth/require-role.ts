@@ -4,6 +4,7 @@ import { roleSchema, type Role } from '../../shared/schemas/roles';
 import type { SessionUser } from '../../shared/schemas/me.schema';
 import { ForbiddenError, UnauthorizedError } from '../errors/app-error';
 import type { Auth } from './auth';
+import type { SessionCache } from './session-cache';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -20,9 +21,20 @@ declare global {
 /**
  * Reads the better-auth session cookie once per API request and puts the user in
  * `res.locals.user` (null without a valid session). Mounted in createApp before the modules.
+ * With a session cache (SESSION_CACHE_SECONDS), a session looked up shortly before is taken from
+ * it instead of the database; see server/auth/session-cache.ts for when it is forgotten.
  */
-export function loadSession(auth: Auth): RequestHandler {
+export function loadSession(auth: Auth, cache?: SessionCache, clock: () => Date = () => new Date()): RequestHandler {
   return async (req, res, next) => {
+    const key = cache && cache.ttlMs > 0 ? req.headers.cookie : undefined;
+    if (key) {
+      const hit = cache!.get(key, clock().getTime());
+      if (hit) {
+        res.locals.user = hit;
+        return next();
+      }
+    }
+    const generation = cache?.generation() ?? 0;
     const found = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
     if (!found) {
       res.locals.user = null;
@@ -30,13 +42,15 @@ export function loadSession(auth: Auth): RequestHandler {
     }
     const u = found.user as typeof found.user & { role?: string | null; customerId?: string | null };
     const role = roleSchema.safeParse(u.role);
-    res.locals.user = {
+    const user: SessionUser = {
       id: u.id,
       name: u.name,
       email: u.email,
       role: role.success ? role.data : null,
       customerId: u.customerId ?? null,
     };
+    if (key) cache!.set(key, user, new Date(found.session.expiresAt).getTime(), clock().getTime(), generation);
+    res.locals.user = user;
     next();
   };
 }

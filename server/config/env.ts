@@ -127,6 +127,15 @@ const envSchema = z.object({
     }
     return n;
   }),
+  SESSION_CACHE_SECONDS: optionalText.transform((v, ctx) => {
+    if (v === undefined) return undefined;
+    const n = Number(v);
+    if (!Number.isInteger(n) || n < 0 || n > 300) {
+      ctx.addIssue({ code: 'custom', message: `SESSION_CACHE_SECONDS must be a whole number of seconds from 0 (off) to 300, got "${v}"` });
+      return z.NEVER;
+    }
+    return n;
+  }),
   EMBERLINE_CLOCK_OFFSET_DAYS: optionalText.transform((v, ctx) => {
     if (v === undefined) return 0;
     const n = Number(v);
@@ -175,6 +184,11 @@ export type Config = {
   trustProxy: false | number | string;
   /** Failed sign-ins allowed per client address and window (server/security/rate-limit.ts). */
   signInRateLimit: { limit: number; windowMs: number };
+  /**
+   * How long a session look-up is remembered per instance (server/auth/session-cache.ts), in ms;
+   * 0 off. SESSION_CACHE_SECONDS, default 5 s, and off under NODE_ENV=test unless set.
+   */
+  sessionCacheMs: number;
   /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
   clockOffsetDays: number;
   /** The lab's own signing P12 (path, passphrase); unset: a self-signed one under dataDir/signing. */
@@ -235,6 +249,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     taskConcurrency: e.TASK_CONCURRENCY,
     clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,
     signInRateLimit: { limit: e.SIGN_IN_RATE_LIMIT, windowMs: e.SIGN_IN_RATE_WINDOW_MINUTES * 60_000 },
+    sessionCacheMs: (e.SESSION_CACHE_SECONDS ?? (e.NODE_ENV === 'test' ? 0 : 5)) * 1000,
     signing: e.SIGNING_P12_PATH ? { p12Path: path.resolve(cwd, e.SIGNING_P12_PATH), passphrase: e.SIGNING_P12_PASSPHRASE ?? '' } : undefined,
   };
 }
