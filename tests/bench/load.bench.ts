@@ -1,6 +1,6 @@
 /**
  * Load benchmark (`npm run bench:load`): autocannon against a locally started server — 50
- * concurrent clients posting a shipped template's budget to the stateless GUM recompute
+ * concurrent clients posting a shipped template's budget document to the stateless GUM recompute
  * (POST /api/calculations/gum) — first alone, then while 10^6-trial Monte Carlo runs keep going
  * on the same server. Once on the embedded PGlite, once on a throw-away PostgreSQL cluster
  * (Debian's postgresql; skipped with a message when it is not installed) with the durable queue.
@@ -150,6 +150,12 @@ function templateBudget(key: string): Template {
   return JSON.parse(fs.readFileSync(path.join(ROOT, 'templates', `${key}.json`), 'utf8')) as Template;
 }
 
+/** The budget-document fields of a template (DESIGN.md "The budget document"). */
+function budgetDocument(template: Template): Record<string, unknown> {
+  const keys = ['measurand', 'equations', 'constants', 'inputs', 'correlations', 'coverage', 'monteCarlo'];
+  return Object.fromEntries(Object.entries(template).filter(([k]) => keys.includes(k)));
+}
+
 /** A draft job with points whose inputs are all filled from the template's demo values. */
 async function preparePoints(baseUrl: string, cookie: string, template: Template, n: number): Promise<string[]> {
   const options = await api<{ templateVersions: Array<{ id: string; key: string }>; items: Array<{ id: string; customerId: string }> }>(baseUrl, cookie, 'GET', '/api/jobs/options');
@@ -238,9 +244,12 @@ async function benchBackend(name: string, env: Record<string, string>): Promise<
   try {
     const cookie = await signIn(server.baseUrl, 'analyst');
     const template = templateBudget('ir-thermometer-blackbody');
-    const body = JSON.stringify({ budget: template });
+    // The budget document of DESIGN.md (model, inputs, coverage), as a client recomputing a budget
+    // sends it; the template's certificate wording, CMC rows and reference case stay at home.
+    const budget = budgetDocument(template);
+    const body = JSON.stringify({ budget });
     // The body must be accepted before it is timed.
-    await api(server.baseUrl, cookie, 'POST', '/api/calculations/gum', { budget: template });
+    await api(server.baseUrl, cookie, 'POST', '/api/calculations/gum', { budget });
     const points = await preparePoints(server.baseUrl, cookie, template, MC_STREAMS);
     await gumLoad('warm-up', server.baseUrl, cookie, body, 2);
     const alone = await gumLoad(`${name}: GUM recompute alone`, server.baseUrl, cookie, body, SECONDS);
