@@ -37,7 +37,7 @@ export const SECTIONS: Record<SectionId, Section> = {
 };
 
 export const NAVIGATION: Record<Role, readonly SectionId[]> = {
-  admin: ['users', 'lab', 'mail', 'audit'],
+  admin: ['users', 'lab', 'audit', 'mail'],
   quality_manager: ['templates', 'standards', 'customers', 'certificates', 'audit', 'mail'],
   analyst: ['jobs', 'standards', 'customers'],
   signatory: ['review', 'certificates'],

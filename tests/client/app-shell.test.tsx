@@ -5,7 +5,7 @@ import type { Role } from '../../shared/schemas/roles';
 import { DEMO_LAB, json, meFor, mockFetch, renderApp, unauthorized } from './render-app';
 
 const EXPECTED: Record<Role, { home: string; heading: string; links: string[] }> = {
-  admin: { home: '/app/users', heading: 'Users and roles', links: ['Users and roles', 'Laboratory details', 'E-mail log', 'Audit log'] },
+  admin: { home: '/app/users', heading: 'Users and roles', links: ['Users and roles', 'Laboratory details', 'Audit log', 'E-mail log'] },
   quality_manager: {
     home: '/app/templates',
     heading: 'Measurement models',

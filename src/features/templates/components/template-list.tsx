@@ -31,7 +31,7 @@ export function TemplateList({ canEdit }: { canEdit: boolean }) {
               <th scope="col" className="px-4 py-2 font-semibold">Model</th>
               <th scope="col" className="px-3 py-2 font-semibold">Measurand</th>
               <th scope="col" className="px-3 py-2 text-right font-semibold">Latest version</th>
-              <th scope="col" className="px-3 py-2 font-semibold">State</th>
+              <th scope="col" className="px-3 py-2 font-semibold">Status</th>
               <th scope="col" className="px-3 py-2 font-semibold">In use for new jobs</th>
               <th scope="col" className="px-4 py-2 font-semibold">Last change</th>
             </tr>

@@ -43,7 +43,7 @@ export function UserAdmin({ customers, meId }: { customers: Customers; meId: str
         <div className="overflow-x-auto rounded-card border border-line bg-surface">
           <table className="w-full text-left text-sm">
             <thead className="border-b border-line bg-sunken text-xs text-ink-muted">
-              <tr><th className="px-3 py-2">Name</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Role</th><th className="px-3 py-2">State</th><th className="px-3 py-2">Actions</th></tr>
+              <tr><th className="px-3 py-2">Name</th><th className="px-3 py-2">E-mail</th><th className="px-3 py-2">Role</th><th className="px-3 py-2">Status</th><th className="px-3 py-2">Actions</th></tr>
             </thead>
             <tbody>
               {q.data.map((u) => (
