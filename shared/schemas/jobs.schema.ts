@@ -60,6 +60,67 @@ export const jobListQuerySchema = z.object({
 });
 export type JobListQuery = z.infer<typeof jobListQuerySchema>;
 
+/**
+ * What a job says about the amendment it was opened for (ISO/IEC 17025:2017 §7.8.8): the issued
+ * certificate it amends, the reason given, and whether the amendment is still being prepared
+ * (`open`) or its new certificate has been issued and replaced the old one (`issued`).
+ */
+export const jobAmendsSchema = z.object({
+  certificateNumber: z.string(),
+  reason: z.string(),
+  status: z.enum(['open', 'issued']),
+  /** The certificate issued from this job, which replaced the amended one; null while open. */
+  newCertificateNumber: z.string().nullable(),
+});
+export type JobAmends = z.infer<typeof jobAmendsSchema>;
+
+/** A job record as the API answers it (create, update, submit). */
+export const jobSchema = z.object({
+  id: z.string(),
+  number: z.string(),
+  status: z.enum(JOB_STATUSES),
+  customerId: z.string(),
+  customer: z.string().nullable(),
+  itemId: z.string(),
+  itemLabel: z.string(),
+  templateVersionId: z.string(),
+  receivedOn: z.string().nullable(),
+  calibratedOn: z.string().nullable(),
+  location: z.string(),
+  environment: environmentSchema,
+  reviewComment: z.string().nullable(),
+  rejectedAt: z.string().nullable(),
+  submittedAt: z.string().nullable(),
+  analystId: z.string(),
+  analyst: z.string().nullable(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type JobDto = z.infer<typeof jobSchema>;
+
+/** The job on its own page (GET /api/jobs/:id): the record and the amendment it belongs to, if any. */
+export const jobViewSchema = jobSchema.extend({ amends: jobAmendsSchema.nullable() });
+export type JobView = z.infer<typeof jobViewSchema>;
+
+/** One row of the jobs list (GET /api/jobs). */
+export const jobListRowSchema = z.object({
+  id: z.string(),
+  number: z.string(),
+  status: z.enum(JOB_STATUSES),
+  itemLabel: z.string(),
+  calibratedOn: z.string().nullable(),
+  receivedOn: z.string().nullable(),
+  updatedAt: z.string(),
+  customerId: z.string(),
+  templateVersionId: z.string(),
+  customer: z.string(),
+  analyst: z.string(),
+  points: z.number(),
+  amends: jobAmendsSchema.nullable(),
+});
+export type JobListRow = z.infer<typeof jobListRowSchema>;
+export const jobListSchema = z.object({ jobs: z.array(jobListRowSchema), total: z.number(), page: z.number(), pageSize: z.number() });
+
 export const pointInputSchema = z
   .object({
     symbol: symbolSchema,

@@ -324,8 +324,14 @@ describe('the whole job, end to end, as each of its users', () => {
 
     await signIn('analyst@emberline-demo.test');
     await page.goto(`${server.url}/app/jobs`);
+    // The jobs list and the job page say which certificate the draft amends and why (§7.8.8).
+    const revisionRow = page.locator('tr', { has: page.getByRole('link', { name: revision }) });
+    await revisionRow.getByText(`Amends ${number}`).waitFor();
+    await shot('analyst-jobs-amendment');
     await page.getByRole('link', { name: revision }).first().click();
     await page.getByRole('heading', { name: revision }).waitFor();
+    await page.getByText(`Amendment of certificate ${number}`).waitFor();
+    await page.getByText(/Reason: The item’s serial number was printed without its suffix; corrected\./).waitFor();
     await expect.poll(() => page.getByText('✓ Every check passes.').count(), { timeout: 30_000 }).toBe(1);
     await shot('analyst-revision');
     await page.getByRole('button', { name: 'Submit for review' }).click();

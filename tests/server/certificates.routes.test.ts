@@ -93,6 +93,36 @@ describe('staff access', () => {
 });
 
 describe('amendment (ISO/IEC 17025:2017 §7.8.8)', () => {
+  it('when an amendment is opened, then the new draft job names the certificate it amends and the reason', async () => {
+    const { jobId: originalJobId } = await submittedJob(t);
+    const issued = await approve(t, originalJobId);
+    const reason = 'The calibration date was entered one day late.';
+    const qm = await t.signIn('quality_manager');
+    const opened = await qm.post(`/api/certificates/${issued.id}/amend`).send({ reason }).expect(201);
+    const newJobId = opened.body.jobId as string;
+
+    // The analyst's job page and jobs list say which certificate the draft amends, and why.
+    const analyst = await t.signIn('analyst');
+    const page = await analyst.get(`/api/jobs/${newJobId}`).expect(200);
+    expect(page.body.job.status).toBe('draft');
+    expect(page.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null });
+    const list = await analyst.get('/api/jobs').query({ q: issued.number }).expect(200);
+    expect(list.body.jobs.map((j: { id: string }) => j.id)).toEqual([newJobId]);
+    expect(list.body.jobs[0].amends).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null });
+    const all = await analyst.get('/api/jobs').query({ pageSize: 100 }).expect(200);
+    const original = all.body.jobs.find((j: { id: string }) => j.id === originalJobId);
+    expect(original.amends).toBeNull();
+    expect((await analyst.get(`/api/jobs/${originalJobId}`).expect(200)).body.job.amends).toBeNull();
+    // Readers of the job (quality manager) see the same.
+    expect((await qm.get(`/api/jobs/${newJobId}`).expect(200)).body.job.amends.certificateNumber).toBe(issued.number);
+
+    // Once approved, the job names the certificate that replaced the amended one.
+    await analyst.post(`/api/jobs/${newJobId}/submit`).expect(200);
+    const next = await approve(t, newJobId);
+    const after = await analyst.get(`/api/jobs/${newJobId}`).expect(200);
+    expect(after.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'issued', newCertificateNumber: next.number });
+  }, 120_000);
+
   it('when an amendment is opened, reviewed and approved, then the new certificate names the old one and why, and the old one is superseded but still verifies', async () => {
     const qm = await t.signIn('quality_manager');
     await qm.post(`/api/certificates/${cert.id}/amend`).send({ reason: '' }).expect(400);

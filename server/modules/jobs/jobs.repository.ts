@@ -1,7 +1,8 @@
 import { and, asc, count, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db/client';
-import { calibrationPoints, customers, jobs, readings, user } from '../../db/schema';
-import type { JobListQuery, JobStatus } from '../../../shared/schemas/jobs.schema';
+import { calibrationPoints, certificateAmendments, certificates, customers, jobs, readings, user } from '../../db/schema';
+import type { JobAmends, JobListQuery, JobStatus } from '../../../shared/schemas/jobs.schema';
 
 export type JobRow = typeof jobs.$inferSelect;
 export type PointRow = typeof calibrationPoints.$inferSelect;
@@ -11,7 +12,27 @@ export type JobListRow = Pick<JobRow, 'id' | 'number' | 'status' | 'itemLabel' |
   customer: string;
   analyst: string;
   points: number;
+  amends: JobAmends | null;
 };
+
+/** The certificate an amendment amends, and the one its approval issued (ISO/IEC 17025:2017 §7.8.8). */
+const amendedCertificate = alias(certificates, 'amended_certificate');
+const replacingCertificate = alias(certificates, 'replacing_certificate');
+
+/** Columns of the amendment a job was opened for; every one is null for an ordinary job. */
+const amendsColumns = {
+  certificateNumber: amendedCertificate.number,
+  reason: certificateAmendments.reason,
+  status: certificateAmendments.status,
+  newCertificateNumber: replacingCertificate.number,
+};
+type AmendsColumns = { certificateNumber: string | null; reason: string | null; status: 'open' | 'issued' | null; newCertificateNumber: string | null };
+
+function toAmends(a: AmendsColumns | null): JobAmends | null {
+  // Drizzle may give a nested selection over left-joined tables as null when every column is null.
+  if (!a || a.certificateNumber === null || a.reason === null || a.status === null) return null;
+  return { certificateNumber: a.certificateNumber, reason: a.reason, status: a.status, newCertificateNumber: a.status === 'issued' ? a.newCertificateNumber : null };
+}
 
 /** Drizzle queries of jobs, their points and readings. No HTTP, no rules. */
 export function createJobsRepository(db: Db) {
@@ -29,7 +50,7 @@ export function createJobsRepository(db: Db) {
       if (analystId) where.push(eq(jobs.analystId, analystId));
       if (q.q && q.q.trim()) {
         const like = `%${q.q.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-        where.push(or(ilike(jobs.number, like), ilike(jobs.itemLabel, like), ilike(customers.organisation, like))!);
+        where.push(or(ilike(jobs.number, like), ilike(jobs.itemLabel, like), ilike(customers.organisation, like), ilike(amendedCertificate.number, like))!);
       }
       const cond = where.length ? and(...where) : undefined;
       const pointsCount = db.$count(calibrationPoints, eq(calibrationPoints.jobId, jobs.id));
@@ -37,17 +58,26 @@ export function createJobsRepository(db: Db) {
         .select({
           id: jobs.id, number: jobs.number, status: jobs.status, itemLabel: jobs.itemLabel, calibratedOn: jobs.calibratedOn,
           receivedOn: jobs.receivedOn, updatedAt: jobs.updatedAt, customerId: jobs.customerId, templateVersionId: jobs.templateVersionId,
-          customer: customers.organisation, analyst: user.name, points: pointsCount,
+          customer: customers.organisation, analyst: user.name, points: pointsCount, amends: amendsColumns,
         })
         .from(jobs)
         .innerJoin(customers, eq(customers.id, jobs.customerId))
         .innerJoin(user, eq(user.id, jobs.analystId))
+        .leftJoin(certificateAmendments, eq(certificateAmendments.newJobId, jobs.id))
+        .leftJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
+        .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
         .where(cond)
         .orderBy(desc(jobs.updatedAt), desc(jobs.number))
         .limit(q.pageSize)
         .offset((q.page - 1) * q.pageSize);
-      const [{ total }] = await db.select({ total: count() }).from(jobs).innerJoin(customers, eq(customers.id, jobs.customerId)).where(cond);
-      return { rows: rows.map((r) => ({ ...r, points: Number(r.points) })), total: Number(total) };
+      const [{ total }] = await db
+        .select({ total: count() })
+        .from(jobs)
+        .innerJoin(customers, eq(customers.id, jobs.customerId))
+        .leftJoin(certificateAmendments, eq(certificateAmendments.newJobId, jobs.id))
+        .leftJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
+        .where(cond);
+      return { rows: rows.map((r) => ({ ...r, points: Number(r.points), amends: toAmends(r.amends) })), total: Number(total) };
     },
 
     async get(id: string, tx: Db = db): Promise<(JobRow & { customer: string; analyst: string }) | null> {
@@ -58,6 +88,20 @@ export function createJobsRepository(db: Db) {
         .innerJoin(user, eq(user.id, jobs.analystId))
         .where(eq(jobs.id, id));
       return row ? { ...row.job, customer: row.customer, analyst: row.analyst } : null;
+    },
+
+    /**
+     * The amendment a job was opened for (at most one: `new_job_id` is unique), with the number
+     * of the certificate it amends and, once approved, of the certificate that replaced it.
+     */
+    async amendsOf(jobId: string, tx: Db = db): Promise<JobAmends | null> {
+      const [row] = await tx
+        .select(amendsColumns)
+        .from(certificateAmendments)
+        .innerJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
+        .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
+        .where(eq(certificateAmendments.newJobId, jobId));
+      return row ? toAmends(row) : null;
     },
 
     async lockJob(tx: Db, id: string): Promise<JobRow | null> {

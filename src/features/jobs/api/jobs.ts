@@ -3,10 +3,10 @@
  * The customer list comes from the customers feature (`useCustomers`): one query per key, one shape.
  */
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { CreateJob, UpdateJob } from '../../../../shared/schemas/jobs.schema';
+import { jobListSchema, type CreateJob, type UpdateJob } from '../../../../shared/schemas/jobs.schema';
 import { api } from '../../../lib/api-client';
 import { jobKeys } from './keys';
-import type { Checks, Job, JobDetail, JobListRow, JobOptions, Standard } from './types';
+import type { Checks, Job, JobDetail, JobOptions, Standard } from './types';
 
 export type JobFilters = { status?: string; q?: string; customerId?: string; page?: number };
 
@@ -18,7 +18,7 @@ function qs(f: Record<string, unknown>) {
 }
 
 export const jobsQueryOptions = (f: JobFilters) =>
-  queryOptions({ queryKey: jobKeys.list(f), queryFn: ({ signal }) => api.get<{ jobs: JobListRow[]; total: number; page: number; pageSize: number }>(`/api/jobs${qs(f)}`, { signal }), placeholderData: keepPreviousData });
+  queryOptions({ queryKey: jobKeys.list(f), queryFn: ({ signal }) => api.get(`/api/jobs${qs(f)}`, { signal, schema: jobListSchema }), placeholderData: keepPreviousData });
 export const useJobs = (f: JobFilters) => useQuery(jobsQueryOptions(f));
 
 export const jobOptionsQueryOptions = () => queryOptions({ queryKey: jobKeys.options(), queryFn: ({ signal }) => api.get<JobOptions>('/api/jobs/options', { signal }) });

@@ -1,13 +1,10 @@
 import type { EvaluationResult } from '../../../../shared/engine';
-import type { Environment, JobStatus, PointInput } from '../../../../shared/schemas/jobs.schema';
+import type { JobDto, JobView, PointInput } from '../../../../shared/schemas/jobs.schema';
 import type { TemplateDefinition } from '../../../../shared/schemas/template.schema';
 
-export type JobListRow = { id: string; number: string; status: JobStatus; itemLabel: string; customer: string; analyst: string; calibratedOn: string | null; updatedAt: string; points: number };
-export type Job = {
-  id: string; number: string; status: JobStatus; customerId: string; customer: string | null; itemId: string; itemLabel: string; templateVersionId: string;
-  receivedOn: string | null; calibratedOn: string | null; location: string; environment: Environment; reviewComment: string | null; rejectedAt: string | null;
-  submittedAt: string | null; analystId: string; analyst: string | null; createdAt: string; updatedAt: string;
-};
+/** The job contracts live in shared/schemas/jobs.schema.ts (one zod schema each). */
+export type { JobAmends, JobListRow } from '../../../../shared/schemas/jobs.schema';
+export type Job = JobDto;
 export type Reported = { method: 'gum' | 'monte-carlo'; y: number; U: number; k: number | null; interval: [number, number]; note: string | null };
 export type Point = {
   id: string; jobId: string; position: number; nominalValue: number; nominalUnit: string; inputs: PointInput[];
@@ -16,7 +13,7 @@ export type Point = {
 };
 export type Standard = { id: string; name: string; identifier: string | null; kind: string | null; certificateNumber: string | null; dueDate: string | null; status: string; values: Array<{ label: string; value: number; U: number; k: number; unit: string }> };
 export type JobDetail = {
-  job: Job;
+  job: JobView;
   template: { id: string; name: string; version: number; key: string | null; definition: TemplateDefinition };
   points: Point[];
   readings: Array<{ pointId: string; symbol: string; n: number; fileName: string | null; sha256: string | null; column: string | null; uploadedAt: string }>;

@@ -5,6 +5,7 @@ import { buttonClasses } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { useCustomers } from '../../customers/api/customers';
 import { useJobs } from '../api/jobs';
+import { AmendmentMark } from './amendment';
 import { JobStatusBadge } from './job-status';
 
 /** Calibration jobs with filters (status, customer), text search (number, item, customer) and pages. */
@@ -60,7 +61,10 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
           <tbody>
             {jobs.data?.jobs.map((j) => (
               <tr key={j.id} className="border-b border-line hover:bg-sunken">
-                <td className="whitespace-nowrap py-1.5 pr-3 font-mono"><Link className="font-semibold text-ember-strong underline" to={`/app/jobs/${j.id}`}>{j.number}</Link></td>
+                <td className="whitespace-nowrap py-1.5 pr-3 font-mono">
+                  <Link className="font-semibold text-ember-strong underline" to={`/app/jobs/${j.id}`}>{j.number}</Link>
+                  {j.amends && <AmendmentMark amends={j.amends} />}
+                </td>
                 <td className="py-1.5 pr-3">{j.customer}</td>
                 <td className="py-1.5 pr-3">{j.itemLabel}</td>
                 <td className="py-1.5 pr-3"><JobStatusBadge status={j.status} /></td>

@@ -1,0 +1,44 @@
+/**
+ * How a job says that it amends an issued certificate (ISO/IEC 17025:2017 §7.8.8): a notice at
+ * the top of the job page and a short mark in the jobs list. The wording follows the review page
+ * (src/features/review/components/review-page.tsx), so analyst and signatory read the same thing.
+ */
+import type { JobAmends } from '../../../../shared/schemas/jobs.schema';
+import { Notice } from '../../../components/ui/notice';
+
+const Num = ({ children }: { children: string }) => <span className="whitespace-nowrap">{children}</span>;
+
+/** The reason as one sentence: without its own final full stop, which the notice adds. */
+const sentence = (reason: string) => reason.trim().replace(/[.\s]+$/, '');
+
+/** At the top of the job page: which certificate the job amends, why, and what approval does to it. */
+export function AmendmentNotice({ amends }: { amends: JobAmends }) {
+  const old = amends.certificateNumber;
+  if (amends.status === 'issued') {
+    return (
+      <Notice tone="info" label={`Amendment of certificate ${old}`}>
+        <p>Reason: {sentence(amends.reason)}.</p>
+        <p className="mt-1">
+          {amends.newCertificateNumber ? <>Certificate <Num>{amends.newCertificateNumber}</Num>, issued from this job, replaced <Num>{old}</Num>, which is now marked superseded.</> : <>The new certificate issued from this job replaced <Num>{old}</Num>, which is now marked superseded.</>}
+        </p>
+      </Notice>
+    );
+  }
+  return (
+    <Notice tone="warn" label={`Amendment of certificate ${old}`}>
+      <p>Reason: {sentence(amends.reason)}.</p>
+      <p className="mt-1">
+        This draft is a copy of the job behind <Num>{old}</Num>: change what the amendment needs, then submit it for review as usual. When an authorised signatory approves it, the new certificate replaces <Num>{old}</Num>, which is then marked superseded.
+      </p>
+    </Notice>
+  );
+}
+
+/** In the jobs list, under the job number. */
+export function AmendmentMark({ amends }: { amends: JobAmends }) {
+  return (
+    <div className="font-sans text-xs text-ink-muted" title={`Reason: ${sentence(amends.reason)}.`}>
+      Amends <Num>{amends.certificateNumber}</Num>
+    </div>
+  );
+}
