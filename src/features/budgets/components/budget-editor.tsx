@@ -3,7 +3,7 @@
  * units, SI inside), readings, reference-standard values, correlations, and the GUM budget
  * table recomputed in the browser as the analyst types (debounced). Monte Carlo runs on the server.
  */
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { Fragment, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { evaluateGum, EngineError, type EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
 import { roundUncertainty } from '../../../../shared/format/result';
@@ -22,8 +22,24 @@ import { InputRow } from './input-row';
 import { MonteCarloPanel } from './monte-carlo-panel';
 import { formatDateTimeUtc } from '../../../../shared/format/date';
 import { useDebounced } from '../../../lib/use-debounced';
+import { Sym } from '../../templates/components/math-tex';
+import { symbolPlain } from '../../templates/components/symbol-tex';
 
 type Correlation = { between: [string, string]; r: number };
+
+/** Symbols typeset in running text: "a, b and c". */
+function SymList({ names }: { names: string[] }) {
+  return (
+    <>
+      {names.map((n, i) => (
+        <Fragment key={n}>
+          {i > 0 && (i === names.length - 1 ? ' and ' : ', ')}
+          <Sym name={n} />
+        </Fragment>
+      ))}
+    </>
+  );
+}
 
 
 export function BudgetEditor({ point, definition, standards, reasons, today, editable, onSaved }: {
@@ -40,7 +56,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
   const [units, setUnits] = useState<Record<string, string | undefined>>(() => Object.fromEntries(point.inputs.map((i) => [i.symbol, i.displayUnit ?? i.unit])));
   const [dirty, setDirty] = useState(false);
   const [panel, setPanel] = useState<{ kind: 'readings' | 'standard'; symbol: string } | null>(null);
-  const [status, setStatus] = useState<{ tone: 'ok' | 'danger' | 'info'; text: string } | null>(null);
+  const [status, setStatus] = useState<{ tone: 'ok' | 'danger' | 'info'; text: ReactNode } | null>(null);
   const [busy, setBusy] = useState(false);
   const lastServer = useRef(point.changedAt);
 
@@ -55,9 +71,9 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
 
   const debouncedInputs = useDebounced(inputs, 200);
   const debouncedCorr = useDebounced(correlations, 200);
-  const live = useMemo((): { result: EvaluationResult | null; error: string | null } => {
+  const live = useMemo((): { result: EvaluationResult | null; error: ReactNode } => {
     const doc = pointBudget(definition, { inputs: debouncedInputs, correlations: debouncedCorr });
-    if (!doc) return { result: null, error: `Fill ${debouncedInputs.filter((i) => i.distribution === null).map((i) => i.symbol).join(', ')} to see the budget.` };
+    if (!doc) return { result: null, error: <>Fill <SymList names={debouncedInputs.filter((i) => i.distribution === null).map((i) => i.symbol)} /> to see the budget.</> };
     try {
       return { result: evaluateGum(doc, { codegen: false }), error: null };
     } catch (err) {
@@ -76,7 +92,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
     setDirty(false);
   }
 
-  async function act(what: () => Promise<unknown>, ok: string) {
+  async function act(what: () => Promise<unknown>, ok: ReactNode) {
     setBusy(true);
     setStatus(null);
     try {
@@ -140,8 +156,8 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
             symbol={panel.symbol}
             unit={units[panel.symbol]}
             onClose={() => setPanel(null)}
-            onText={(text) => act(async () => { await save(); await typedReadings(point.id, panel.symbol, { text, unit: units[panel.symbol] }); setPanel(null); }, `Readings of ${panel.symbol} saved.`)}
-            onFile={(file, column) => act(async () => { await save(); const r = await uploadReadings(point.id, panel.symbol, file, { column, unit: units[panel.symbol] }); setPanel(null); return r; }, `Readings of ${panel.symbol} read from ${'the file'} and saved.`)}
+            onText={(text) => act(async () => { await save(); await typedReadings(point.id, panel.symbol, { text, unit: units[panel.symbol] }); setPanel(null); }, <>Readings of <Sym name={panel.symbol} /> saved.</>)}
+            onFile={(file, column) => act(async () => { await save(); const r = await uploadReadings(point.id, panel.symbol, file, { column, unit: units[panel.symbol] }); setPanel(null); return r; }, <>Readings of <Sym name={panel.symbol} /> read from the file and saved.</>)}
             busy={busy}
           />
         )}
@@ -151,7 +167,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
             standards={standards}
             today={today}
             onClose={() => setPanel(null)}
-            onPick={(standardId, valueIndex) => act(async () => { await save(); await fromStandard(point.id, panel.symbol, { standardId, valueIndex }); setPanel(null); }, `${panel.symbol} taken from the standard's certificate (u = U/k).`)}
+            onPick={(standardId, valueIndex) => act(async () => { await save(); await fromStandard(point.id, panel.symbol, { standardId, valueIndex }); setPanel(null); }, <><Sym name={panel.symbol} /> taken from the standard’s certificate (<i>u</i> = <i>U</i>/<i>k</i>).</>)}
           />
         )}
         <CorrelationEditor inputs={inputs} correlations={correlations} disabled={!editable} onChange={(c) => { setCorrelations(c); setDirty(true); }} />
@@ -221,7 +237,7 @@ function StoredResult({ point }: { point: Point }) {
   return (
     <div className="mt-1 text-sm">
       <p className="font-mono tabular-nums">
-        {r.measurand} = {r.reported.value} {unit}, U = {r.reported.U} {unit} (k = {r.reported.k}) · GUM interval [{g(r.gum.interval[0])}, {g(r.gum.interval[1])}] {unit}
+        <Sym name={r.measurand} className="font-sans" /> = {r.reported.value} {unit}, U = {r.reported.U} {unit} (k = {r.reported.k}) · GUM interval [{g(r.gum.interval[0])}, {g(r.gum.interval[1])}] {unit}
       </p>
       {r.mcm && (
         <p className="font-mono tabular-nums">
@@ -230,7 +246,7 @@ function StoredResult({ point }: { point: Point }) {
       )}
       {r.validation ? (
         <p className={r.validation.passed ? 'text-ok' : 'font-semibold text-warn'}>
-          {r.validation.passed ? '✓ GUM validated by Monte Carlo' : '⚠ GUM not validated by Monte Carlo'} (JCGM 101 §8: d_low = {r.validation.dLow.toPrecision(2)}, d_high = {r.validation.dHigh.toPrecision(2)}, δ = {r.validation.delta.toPrecision(2)})
+          {r.validation.passed ? '✓ GUM validated by Monte Carlo' : '⚠ GUM not validated by Monte Carlo'} (JCGM 101 §8: <i>d</i><sub>low</sub> = {r.validation.dLow.toPrecision(2)}, <i>d</i><sub>high</sub> = {r.validation.dHigh.toPrecision(2)}, <i>δ</i> = {r.validation.delta.toPrecision(2)})
         </p>
       ) : (
         <p className="text-ink-muted">No Monte Carlo run for this result yet.</p>
@@ -251,7 +267,7 @@ function ReadingsPanel({ symbol, unit, onClose, onText, onFile, busy }: { symbol
   return (
     <div className="mt-3 rounded-card border border-line-strong bg-sunken p-3" role="group" aria-label={`Readings of ${symbol}`}>
       <div className="flex items-center gap-2">
-        <h4 className="mr-auto text-sm font-semibold">Readings of <span className="italic">{symbol}</span>, in {formatUnit(unit ?? '')}</h4>
+        <h4 className="mr-auto text-sm font-semibold">Readings of <Sym name={symbol} className="font-normal" />, in {formatUnit(unit ?? '')}</h4>
         <Button variant="quiet" onClick={onClose}>Close</Button>
       </div>
       <div className="mt-2 grid gap-3 md:grid-cols-2">
@@ -280,7 +296,7 @@ function StandardPicker({ symbol, standards, today, onClose, onPick }: { symbol:
   return (
     <div className="mt-3 rounded-card border border-line-strong bg-sunken p-3" role="group" aria-label={`Reference standard for ${symbol}`}>
       <div className="flex items-center gap-2">
-        <h4 className="mr-auto text-sm font-semibold">Take <span className="italic">{symbol}</span> from a reference standard’s certificate</h4>
+        <h4 className="mr-auto text-sm font-semibold">Take <Sym name={symbol} className="font-normal" /> from a reference standard’s certificate</h4>
         <Button variant="quiet" onClick={onClose}>Close</Button>
       </div>
       {standards.length === 0 && <p className="text-sm text-ink-muted">The register has no reference standards yet: ask the quality manager to add them.</p>}
@@ -310,11 +326,11 @@ function CorrelationEditor({ inputs, correlations, onChange, disabled }: { input
   return (
     <details className="mt-3">
       <summary className="cursor-pointer text-sm font-semibold">Correlations ({correlations.length})</summary>
-      <p className="mt-1 text-xs text-ink-muted">Correlation coefficients r between normal inputs (JCGM 101 §6.4.8); with any correlation ν_eff does not apply and k is the normal quantile.</p>
+      <p className="mt-1 text-xs text-ink-muted">Correlation coefficients <i>r</i> between normal inputs (JCGM 101 §6.4.8); with any correlation <i>ν</i><sub>eff</sub> does not apply and <i>k</i> is the normal quantile.</p>
       <ul className="mt-1">
         {correlations.map((c, idx) => (
           <li key={c.between.join('-')} className="flex items-center gap-2 text-sm">
-            <span className="font-mono italic">r({c.between[0]}, {c.between[1]})</span>
+            <span className="whitespace-nowrap"><i>r</i>(<Sym name={c.between[0]} />, <Sym name={c.between[1]} />)</span>
             <input aria-label={`r between ${c.between[0]} and ${c.between[1]}`} type="number" step="0.01" min={-1} max={1} disabled={disabled} className="w-20 rounded-field border border-line-strong px-1 font-mono" value={c.r} onChange={(e) => onChange(correlations.map((x, j) => (j === idx ? { ...x, r: Math.max(-1, Math.min(1, Number(e.target.value))) } : x)))} />
             <Button variant="quiet" className="px-2 py-0.5" disabled={disabled} onClick={() => onChange(correlations.filter((_, j) => j !== idx))}>Remove</Button>
           </li>
@@ -324,11 +340,11 @@ function CorrelationEditor({ inputs, correlations, onChange, disabled }: { input
         <div className="mt-1 flex items-center gap-2 text-sm">
           <select aria-label="first input" value={a} onChange={(e) => setA(e.target.value)} className="rounded-field border border-line-strong px-1">
             <option value="">—</option>
-            {normals.map((s) => <option key={s}>{s}</option>)}
+            {normals.map((s) => <option key={s} value={s}>{symbolPlain(s)}</option>)}
           </select>
           <select aria-label="second input" value={b} onChange={(e) => setB(e.target.value)} className="rounded-field border border-line-strong px-1">
             <option value="">—</option>
-            {normals.filter((s) => s !== a).map((s) => <option key={s}>{s}</option>)}
+            {normals.filter((s) => s !== a).map((s) => <option key={s} value={s}>{symbolPlain(s)}</option>)}
           </select>
           <Button variant="secondary" className="px-2 py-0.5" disabled={disabled || !a || !b || a === b} onClick={() => { onChange([...correlations, { between: [a, b], r: 0 }]); setA(''); setB(''); }}>Add correlation</Button>
         </div>

@@ -2,6 +2,7 @@ import type { EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
 import { formatUnit, inDisplayUnit, sensitivityUnit } from '../../../../shared/format/units';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
+import { Sym } from '../../templates/components/math-tex';
 
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
 /** A unit after a figure in a fixed-width slot, so figures with and without a unit end in one column. */
@@ -45,7 +46,7 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
           const d = inDisplayUnit(b, siOf(b.symbol), shownUnits[b.symbol]);
           return (
           <tr key={b.symbol} className="border-b border-line" data-symbol={b.symbol}>
-            <td className="py-1 pr-2 font-sans italic">{b.symbol}</td>
+            <td className="py-1 pr-2 font-sans"><Sym name={b.symbol} /></td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.estimate, 7)} <span className={`${UNIT} min-w-[2ch]`}>{d.unit}</span></td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.u, 3)} <span className={`${UNIT} min-w-[2ch]`}>{d.unit}</span></td>
             <td className="py-1 pr-2 font-sans">{b.distribution}</td>
@@ -66,7 +67,7 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
       </tbody>
       <tfoot className="font-mono tabular-nums">
         <tr>
-          <td className="py-1.5 pr-2 font-sans font-semibold italic">{result.measurand}</td>
+          <td className="py-1.5 pr-2 font-sans font-semibold"><Sym name={result.measurand} /></td>
           <td className="whitespace-nowrap py-1.5 pr-2 text-right font-semibold">{num(result.gum.y, 7)} <span className={`${UNIT} min-w-[2ch]`}>{y}</span></td>
           <td className="whitespace-nowrap py-1.5 pr-2 text-right font-semibold">{num(result.gum.u, 3)} <span className={`${UNIT} min-w-[2ch]`}>{y}</span></td>
           <td className="py-1.5 pr-2 font-sans text-ink-muted" colSpan={3}>

@@ -8,6 +8,8 @@ import { planck } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
 import { axisTicks } from '../../../../shared/format/ticks';
 import { formatUnit } from '../../../../shared/format/units';
+import { Sym } from '../../templates/components/math-tex';
+import { subscriptUpright, symbolText } from '../../templates/components/symbol-tex';
 
 /** Tooltip values: four significant digits. */
 const tick = (v: number) => formatNumber(v, { digits: 4 });
@@ -17,6 +19,49 @@ function axis(lo: number, hi: number, count = 5) {
   return { type: 'number' as const, domain: [lo, hi] as [number, number], ticks: t.values, tickFormatter: t.label, allowDataOverflow: true, interval: 0 as const };
 }
 const axisStyle = { fontSize: 11, fill: 'var(--color-ink-muted)' };
+
+/**
+ * A model symbol inside an SVG <text> (recharts draws axes as SVG, where HTML <sub> does not
+ * render): the same typeset form as `Sym` (symbolText), the subscript lowered and smaller.
+ * Text after it must rise again by `SUB_DY`.
+ */
+const SUB_DY = 3;
+function SymbolTspans({ name }: { name: string }) {
+  const { base, sub } = symbolText(name);
+  return (
+    <>
+      <tspan fontStyle="italic">{base}</tspan>
+      {sub !== null && <tspan dy={SUB_DY} fontSize={8} fontStyle={subscriptUpright(sub) ? 'normal' : 'italic'}>{sub}</tspan>}
+    </>
+  );
+}
+
+/** A category tick naming an input: typeset symbol, the model identifier as its SVG title (tooltip). */
+export function SymbolTick(props: { x?: number | string; y?: number | string; payload?: { value?: unknown } }) {
+  const name = String(props.payload?.value ?? '');
+  return (
+    <g>
+      <title>{name}</title>
+      <text x={Number(props.x)} y={Number(props.y)} dy={4} textAnchor="end" fontSize={axisStyle.fontSize} fill={axisStyle.fill}>
+        <SymbolTspans name={name} />
+      </text>
+    </g>
+  );
+}
+
+/** A horizontal axis title "symbol / unit" below the axis, the symbol typeset. */
+function symbolAxisTitle(symbol: string, unit: string) {
+  return function SymbolAxisTitle(props: { viewBox?: unknown }) {
+    const box = props.viewBox as { x: number; y: number; width: number; height: number } | undefined;
+    if (!box) return null;
+    return (
+      <text x={box.x + box.width / 2} y={box.y + box.height + 14} textAnchor="middle" fontSize={axisStyle.fontSize} fill={axisStyle.fill}>
+        <SymbolTspans name={symbol} />
+        <tspan dy={symbolText(symbol).sub !== null ? -SUB_DY : 0}> / {unit}</tspan>
+      </text>
+    );
+  };
+}
 
 /** Histogram bars of the Monte Carlo values as densities, with the GUM normal N(y, u²) at the same points. */
 export function histogramSeries(result: EvaluationResult, maxBins = 80) {
@@ -70,7 +115,7 @@ export function HistogramChart({ result }: { result: EvaluationResult }) {
       <ResponsiveContainer width="100%" height={260}>
         <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 28, left: 16 }}>
           <CartesianGrid stroke="var(--color-line)" vertical={false} />
-          <XAxis dataKey="x" {...axis(xLo, xHi, 6)} tick={axisStyle} label={{ value: `${result.measurand} / ${unit}`, position: 'insideBottom', offset: -16, ...axisStyle }} />
+          <XAxis dataKey="x" {...axis(xLo, xHi, 6)} tick={axisStyle} label={{ content: symbolAxisTitle(result.measurand, unit) }} />
           <YAxis {...axis(0, yHi, 4)} tick={axisStyle} label={{ value: `probability density / ${unit}⁻¹`, angle: -90, position: 'insideLeft', offset: 0, style: { ...axisStyle, textAnchor: 'middle' } }} width={72} />
           <Tooltip formatter={(v) => tick(Number(v))} labelFormatter={(l) => `${tick(Number(l))} ${unit}`} />
           <ReferenceArea x1={ml} x2={mh} fill="var(--color-ember-soft)" fillOpacity={0.5} />
@@ -100,8 +145,8 @@ export function ContributionsChart({ result }: { result: EvaluationResult }) {
           <CartesianGrid stroke="var(--color-line)" horizontal={false} />
           <XAxis {...axis(0, cMax, 4)} tick={axisStyle} label={{ value: `|cᵢ| u(xᵢ) / ${unit}`, position: 'insideBottom', offset: -14, ...axisStyle }} />
           {/* interval 0: every input is named, the largest bar first (recharts would otherwise skip labels). */}
-          <YAxis type="category" dataKey="symbol" interval={0} tick={{ ...axisStyle, fontStyle: 'italic' }} width={80} />
-          <Tooltip formatter={(v) => `${tick(Number(v))} ${unit}`} />
+          <YAxis type="category" dataKey="symbol" interval={0} tick={SymbolTick} width={80} />
+          <Tooltip formatter={(v) => `${tick(Number(v))} ${unit}`} labelFormatter={(l) => <Sym name={String(l)} />} />
           <Bar dataKey="contribution" fill="var(--color-ember)" isAnimationActive={false} />
         </BarChart>
       </ResponsiveContainer>

@@ -6,6 +6,7 @@ import { DISTRIBUTION_TYPES, type Distribution } from '../../../../shared/schema
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 import { INPUT_SOURCE_LABELS } from '../../../../shared/schemas/template.schema';
 import type { Standard } from '../../jobs/api/types';
+import { Sym } from '../../templates/components/math-tex';
 import { DISTRIBUTION_LABELS, fromDisplay, parameterKeys, switchType, toDisplay, unitChoices } from './units';
 
 /** Enter moves to the same column of the next row, Shift+Enter back (Tab moves along the row). */
@@ -86,7 +87,8 @@ export function InputRow(props: {
   return (
     <tr className="border-b border-line align-top" data-input={input.symbol}>
       <td className="py-1.5 pr-2">
-        <span className="font-mono italic">{input.symbol}</span>
+        {/* Typeset as the review page and the certificate show it; the model identifier in the tooltip. */}
+        <Sym name={input.symbol} />
         <p className="max-w-64 text-xs text-ink-muted">{input.description}</p>
         {input.source && <p className="text-xs text-ink-muted">from: {INPUT_SOURCE_LABELS[input.source]}</p>}
       </td>

@@ -2,7 +2,7 @@ import katex from 'katex';
 import 'katex/dist/katex.min.css';
 import { useMemo } from 'react';
 import { cn } from '../../../lib/cn';
-import { symbolTex, symbolText } from './symbol-tex';
+import { subscriptUpright, symbolTex, symbolText } from './symbol-tex';
 
 /** TeX typeset by KaTeX (fonts bundled by Vite from katex/dist; nothing from a CDN). */
 export function MathTex({ tex, display = false, className, label }: { tex: string; display?: boolean; className?: string; label?: string }) {
@@ -13,7 +13,7 @@ export function MathTex({ tex, display = false, className, label }: { tex: strin
 /** A model symbol in running text: italic base (Greek where spelled), upright descriptive subscript. */
 export function Sym({ name, className }: { name: string; className?: string }) {
   const { base, sub } = symbolText(name);
-  const upright = sub !== null && !(sub.length === 1 && /[a-z]/i.test(sub));
+  const upright = sub !== null && subscriptUpright(sub);
   return (
     <span className={cn('whitespace-nowrap', className)} title={name}>
       <i>{base}</i>

@@ -64,6 +64,23 @@ export function symbolText(name: string): { base: string; sub: string | null } {
   return { base: `${p.prefix ? 'δ' : ''}${base}`, sub };
 }
 
+/**
+ * Whether a subscript is set upright: a descriptive one (ref, bb, eff, a number) is, a single
+ * letter standing for a quantity or an index (x_i) stays italic (ISO 80000-1 §7.1).
+ */
+export function subscriptUpright(sub: string): boolean {
+  return !(sub.length === 1 && /[a-z]/i.test(sub));
+}
+
+/**
+ * The symbol as one line of plain Unicode text ("ε_bb", "δT_res", "λ_eff"), for places that take
+ * no markup (an <option>, a text-only chart label). The model identifier itself stays the key.
+ */
+export function symbolPlain(name: string): string {
+  const { base, sub } = symbolText(name);
+  return sub === null ? base : `${base}_${sub}`;
+}
+
 /** TeX of one equation "target = expression"; null when it cannot be read. */
 export function equationTex(text: string): string | null {
   let node: MathNode;
