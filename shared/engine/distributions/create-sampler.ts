@@ -22,7 +22,7 @@ function scaledTSampler(mean: number, scale: number, dof: number): ColumnSampler
   return {
     fill(rng, out, n) {
       for (let i = 0; i < n; i++) {
-        const z = rng.nextNormal ? rng.nextNormal() : nextStandardNormal(rng);
+        const z = nextStandardNormal(rng);
         const chi2 = 2 * gamma(rng);
         out[i] = mean + scale * (z / Math.sqrt(chi2 / dof));
       }

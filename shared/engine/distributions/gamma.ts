@@ -9,7 +9,7 @@ const nextStandardNormal = nextNormalImported; // module-local: fast per-trial c
  * For k < 1: Gamma(k) = Gamma(k + 1)·u^{1/k} (same paper, §6). JCGM 101 §6.4.11 (gamma).
  *
  * d and c are computed once per shape, not once per variate: the Monte Carlo samplers call the
- * returned function once per trial. The stream is consumed exactly as `sampleGamma` does.
+ * returned function once per trial.
  */
 export function createGammaSampler(shape: number): (rng: RandomSource) => number {
   if (shape < 1) {
@@ -20,7 +20,7 @@ export function createGammaSampler(shape: number): (rng: RandomSource) => number
   const c = 1 / Math.sqrt(9 * d);
   return (rng) => {
     for (;;) {
-      const z = rng.nextNormal ? rng.nextNormal() : nextStandardNormal(rng);
+      const z = nextStandardNormal(rng);
       let v = 1 + c * z;
       if (v <= 0) continue;
       v = v * v * v;
@@ -30,9 +30,4 @@ export function createGammaSampler(shape: number): (rng: RandomSource) => number
       if (Math.log(u) < 0.5 * z2 + d * (1 - v + Math.log(v))) return d * v;
     }
   };
-}
-
-/** One Gamma(shape, 1) variate (see createGammaSampler, which a loop should use instead). */
-export function sampleGamma(rng: RandomSource, shape: number): number {
-  return createGammaSampler(shape)(rng);
 }

@@ -5,5 +5,5 @@ export { createSampler, type ColumnSampler } from './create-sampler';
 export { correlationGroups, type CorrelationGroup } from './correlation-groups';
 export { createCorrelatedNormalSampler, type GroupSampler } from './correlated-normal-sampler';
 export { cholesky } from './cholesky';
-export { sampleGamma } from './gamma';
+export { createGammaSampler } from './gamma';
 export { fillStandardNormal, nextStandardNormal, type RandomSource } from './standard-normal';
