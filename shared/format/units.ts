@@ -141,6 +141,12 @@ export function convertInterval(value: number, from: string, to: string): number
   return clean((value * a.factor) / b.factor);
 }
 
+/** A unit as printed beside a figure: formatUnit, and nothing for a dimensionless quantity ("1"). */
+export function printedUnit(unit: string): string {
+  const f = formatUnit(unit);
+  return f === '1' ? '' : f;
+}
+
 /**
  * One budget row's estimate, u(x_i) and c_i in the unit shown for the input (the engine's are SI):
  * the estimate converts as a position (°C has an offset), u as a width, and c_i per shown unit
@@ -149,12 +155,11 @@ export function convertInterval(value: number, from: string, to: string): number
  * figures: empty for a dimensionless input ("1").
  */
 export function inDisplayUnit(b: { estimate: number; u: number; c: number }, si: string, shown: string | undefined): { estimate: number; u: number; c: number; unit: string } {
-  const label = (u: string) => (formatUnit(u) === '1' ? '' : formatUnit(u));
-  if (!shown || formatUnit(shown) === formatUnit(si)) return { estimate: b.estimate, u: b.u, c: b.c, unit: label(si) };
+  if (!shown || formatUnit(shown) === formatUnit(si)) return { estimate: b.estimate, u: b.u, c: b.c, unit: printedUnit(si) };
   try {
-    return { estimate: convert(b.estimate, si, shown), u: convertInterval(b.u, si, shown), c: b.c * convertInterval(1, shown, si), unit: label(shown) };
+    return { estimate: convert(b.estimate, si, shown), u: convertInterval(b.u, si, shown), c: b.c * convertInterval(1, shown, si), unit: printedUnit(shown) };
   } catch {
-    return { estimate: b.estimate, u: b.u, c: b.c, unit: label(si) };
+    return { estimate: b.estimate, u: b.u, c: b.c, unit: printedUnit(si) };
   }
 }
 
@@ -166,8 +171,8 @@ export function inDisplayUnit(b: { estimate: number; u: number; c: number }, si:
  * one solidus at most, products with negative exponents).
  */
 export function sensitivityUnit(yUnit: string, xUnit: string): string {
-  const y = formatUnit(yUnit) === '1' ? '' : formatUnit(yUnit);
-  const x = formatUnit(xUnit) === '1' ? '' : formatUnit(xUnit);
+  const y = printedUnit(yUnit);
+  const x = printedUnit(xUnit);
   if (x === '') return y;
   if (x === y) return '';
   try {

@@ -1,7 +1,7 @@
 import { useState, type KeyboardEvent } from 'react';
 import { typeA } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
-import { formatUnit } from '../../../../shared/format/units';
+import { formatUnit, printedUnit } from '../../../../shared/format/units';
 import { DISTRIBUTION_TYPES, type Distribution } from '../../../../shared/schemas/budget.schema';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 import { INPUT_SOURCE_LABELS } from '../../../../shared/schemas/template.schema';
@@ -80,8 +80,8 @@ export function InputRow(props: {
     const shownValues = d.values.map((v) => toDisplay('mean', v, si, shownUnit));
     const a = typeA(shownValues);
     // Each figure with its unit, kept on one line with it (no-break space).
-    const unit = formatUnit(shownUnit ?? si ?? '');
-    const f = (x: number) => `${formatNumber(x, { digits: 5 })}${unit && unit !== '1' ? `\u00a0${unit}` : ''}`;
+    const unit = printedUnit(shownUnit ?? si ?? '');
+    const f = (x: number) => `${formatNumber(x, { digits: 5 })}${unit ? `\u00a0${unit}` : ''}`;
     readingsSummary = `n = ${a.n}, mean = ${f(a.mean)}, s = ${f(a.s)}, s/√n = ${f(a.u)}, ν = ${a.dof}`;
   }
   return (
