@@ -3,10 +3,9 @@ import { formatNumber } from '../../../../shared/format/number';
 import { formatUnit, inDisplayUnit, sensitivityUnit } from '../../../../shared/format/units';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 import { Sym } from '../../templates/components/math-tex';
+import { UnitSlot } from '../../../components/ui/quantity';
 
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
-/** A unit after a figure in a fixed-width slot, so figures with and without a unit end in one column. */
-const UNIT = 'inline-block text-left text-ink-muted';
 
 /**
  * Share of u²(y) in per cent, two significant digits; below 0.01 % it says so instead of printing
@@ -47,10 +46,10 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
           return (
           <tr key={b.symbol} className="border-b border-line" data-symbol={b.symbol}>
             <td className="py-1 pr-2 font-sans"><Sym name={b.symbol} /></td>
-            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.estimate, 7)} <span className={`${UNIT} min-w-[2ch]`}>{d.unit}</span></td>
-            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.u, 3)} <span className={`${UNIT} min-w-[2ch]`}>{d.unit}</span></td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.estimate, 7)} <UnitSlot>{d.unit}</UnitSlot></td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.u, 3)} <UnitSlot>{d.unit}</UnitSlot></td>
             <td className="py-1 pr-2 font-sans">{b.distribution}</td>
-            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.c, 4)} <span className={`${UNIT} min-w-[4ch]`}>{sensitivityUnit(y, d.unit)}</span></td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.c, 4)} <UnitSlot wide>{sensitivityUnit(y, d.unit)}</UnitSlot></td>
             <td className="py-1 pr-2 text-right">{num(b.contribution, 3)}</td>
             <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>
             <td className="py-1">
@@ -68,8 +67,8 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
       <tfoot className="font-mono tabular-nums">
         <tr>
           <td className="py-1.5 pr-2 font-sans font-semibold"><Sym name={result.measurand} /></td>
-          <td className="whitespace-nowrap py-1.5 pr-2 text-right font-semibold">{num(result.gum.y, 7)} <span className={`${UNIT} min-w-[2ch]`}>{y}</span></td>
-          <td className="whitespace-nowrap py-1.5 pr-2 text-right font-semibold">{num(result.gum.u, 3)} <span className={`${UNIT} min-w-[2ch]`}>{y}</span></td>
+          <td className="whitespace-nowrap py-1.5 pr-2 text-right font-semibold">{num(result.gum.y, 7)} <UnitSlot>{y}</UnitSlot></td>
+          <td className="whitespace-nowrap py-1.5 pr-2 text-right font-semibold">{num(result.gum.u, 3)} <UnitSlot>{y}</UnitSlot></td>
           <td className="py-1.5 pr-2 font-sans text-ink-muted" colSpan={3}>
             u<sub>c</sub>(y); ν<sub>eff</sub> = {result.gum.nuEff === null ? 'not applicable (correlated inputs)' : result.gum.nuEff === 'infinite' ? '∞' : formatNumber(result.gum.nuEff, { digits: 3 })}
           </td>

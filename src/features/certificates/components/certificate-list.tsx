@@ -1,13 +1,11 @@
 import { useState, type FormEvent, type ReactNode } from 'react';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
+import { NoBreak } from '../../../components/ui/no-break';
 import { Notice } from '../../../components/ui/notice';
 import { certificateStatusText, type CertificateRow } from '../../../../shared/schemas/certificates-api.schema';
 import { ApiError } from '../../../lib/api-client';
 import { useAmendCertificate, useCertificates } from '../api/certificates';
-
-/** A certificate or job number, kept on one line (it would otherwise break at a hyphen). */
-const Num = ({ children }: { children: string }) => <span className="whitespace-nowrap">{children}</span>;
 
 function AmendForm({ row, onDone }: { row: CertificateRow; onDone: (msg: ReactNode) => void }) {
   const [reason, setReason] = useState('');
@@ -22,7 +20,7 @@ function AmendForm({ row, onDone }: { row: CertificateRow; onDone: (msg: ReactNo
         onSuccess: (r) =>
           onDone(
             <>
-              The job <Num>{r.jobNumber}</Num> is a new draft revision for the analyst. <Num>{row.number}</Num> stays current until the new certificate is issued.
+              The job <NoBreak>{r.jobNumber}</NoBreak> is a new draft revision for the analyst. <NoBreak>{row.number}</NoBreak> stays current until the new certificate is issued.
             </>,
           ),
         onError: (err) => setError(err instanceof ApiError ? err.message : 'The amendment could not be opened.'),
@@ -36,7 +34,7 @@ function AmendForm({ row, onDone }: { row: CertificateRow; onDone: (msg: ReactNo
       </label>
       <textarea id={`reason-${row.id}`} rows={2} className="w-full rounded-field border border-line-strong bg-surface px-3 py-2 text-sm" value={reason} onChange={(e) => setReason(e.target.value)} aria-invalid={error ? true : undefined} />
       {error && <p role="alert" className="text-sm text-danger">{error}</p>}
-      <p className="text-xs text-ink-muted">A new draft revision of the job is made; it is submitted and reviewed again. The new certificate gets a new number and names <Num>{row.number}</Num>, which is then superseded and never deleted.</p>
+      <p className="text-xs text-ink-muted">A new draft revision of the job is made; it is submitted and reviewed again. The new certificate gets a new number and names <NoBreak>{row.number}</NoBreak>, which is then superseded and never deleted.</p>
       <Button type="submit" variant="secondary" disabled={amend.isPending}>
         Open the amendment
       </Button>
@@ -77,7 +75,7 @@ export function CertificateList({ canAmend }: { canAmend: boolean }) {
             <tr key={c.id} className="border-b border-line align-top">
               <td className="whitespace-nowrap py-2 pr-3 font-semibold">
                 {c.number}
-                {c.amends && <div className="max-w-64 whitespace-normal text-xs font-normal text-ink-muted">Replaces <Num>{c.amends}</Num>: {c.amendReason}</div>}
+                {c.amends && <div className="max-w-64 whitespace-normal text-xs font-normal text-ink-muted">Replaces <NoBreak>{c.amends}</NoBreak>: {c.amendReason}</div>}
               </td>
               <td className="py-2 pr-3">
                 {c.customer}
@@ -89,7 +87,7 @@ export function CertificateList({ canAmend }: { canAmend: boolean }) {
               </td>
               <td className="py-2 pr-3">
                 <span data-testid="certificate-status">{certificateStatusText(c)}</span>
-                {c.openAmendment && <div className="text-xs text-ink-muted">Amendment in progress (job <Num>{c.openAmendment.jobNumber}</Num>)</div>}
+                {c.openAmendment && <div className="text-xs text-ink-muted">Amendment in progress (job <NoBreak>{c.openAmendment.jobNumber}</NoBreak>)</div>}
                 {canAmend && c.status === 'current' && !c.openAmendment && (
                   <div>
                     <button type="button" className="mt-1 text-xs text-ember-strong underline" onClick={() => setAmending(amending === c.id ? null : c.id)} aria-expanded={amending === c.id}>

@@ -5,11 +5,9 @@
  */
 import type { JobAmends } from '../../../../shared/schemas/jobs.schema';
 import { Notice } from '../../../components/ui/notice';
+import { NoBreak } from '../../../components/ui/no-break';
+import { withoutFinalStop } from '../../../lib/sentence';
 
-const Num = ({ children }: { children: string }) => <span className="whitespace-nowrap">{children}</span>;
-
-/** The reason as one sentence: without its own final full stop, which the notice adds. */
-const sentence = (reason: string) => reason.trim().replace(/[.\s]+$/, '');
 
 /** At the top of the job page: which certificate the job amends, why, and what approval does to it. */
 export function AmendmentNotice({ amends }: { amends: JobAmends }) {
@@ -17,18 +15,18 @@ export function AmendmentNotice({ amends }: { amends: JobAmends }) {
   if (amends.status === 'issued') {
     return (
       <Notice tone="info" label={`Amendment of certificate ${old}`}>
-        <p>Reason: {sentence(amends.reason)}.</p>
+        <p>Reason: {withoutFinalStop(amends.reason)}.</p>
         <p className="mt-1">
-          {amends.newCertificateNumber ? <>Certificate <Num>{amends.newCertificateNumber}</Num>, issued from this job, replaced <Num>{old}</Num>, which is now marked superseded.</> : <>The new certificate issued from this job replaced <Num>{old}</Num>, which is now marked superseded.</>}
+          {amends.newCertificateNumber ? <>Certificate <NoBreak>{amends.newCertificateNumber}</NoBreak>, issued from this job, replaced <NoBreak>{old}</NoBreak>, which is now marked superseded.</> : <>The new certificate issued from this job replaced <NoBreak>{old}</NoBreak>, which is now marked superseded.</>}
         </p>
       </Notice>
     );
   }
   return (
     <Notice tone="warn" label={`Amendment of certificate ${old}`}>
-      <p>Reason: {sentence(amends.reason)}.</p>
+      <p>Reason: {withoutFinalStop(amends.reason)}.</p>
       <p className="mt-1">
-        This draft is a copy of the job behind <Num>{old}</Num>: change what the amendment needs, then submit it for review as usual. When an authorised signatory approves it, the new certificate replaces <Num>{old}</Num>, which is then marked superseded.
+        This draft is a copy of the job behind <NoBreak>{old}</NoBreak>: change what the amendment needs, then submit it for review as usual. When an authorised signatory approves it, the new certificate replaces <NoBreak>{old}</NoBreak>, which is then marked superseded.
       </p>
     </Notice>
   );
@@ -37,8 +35,8 @@ export function AmendmentNotice({ amends }: { amends: JobAmends }) {
 /** In the jobs list, under the job number. */
 export function AmendmentMark({ amends }: { amends: JobAmends }) {
   return (
-    <div className="font-sans text-xs text-ink-muted" title={`Reason: ${sentence(amends.reason)}.`}>
-      Amends <Num>{amends.certificateNumber}</Num>
+    <div className="font-sans text-xs text-ink-muted" title={`Reason: ${withoutFinalStop(amends.reason)}.`}>
+      Amends <NoBreak>{amends.certificateNumber}</NoBreak>
     </div>
   );
 }

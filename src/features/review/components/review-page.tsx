@@ -9,6 +9,8 @@ import { Sym } from '../../templates/components/math-tex';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
 import { CertificatePreview } from './certificate-preview';
+import { UnitSlot } from '../../../components/ui/quantity';
+import { withoutFinalStop } from '../../../lib/sentence';
 
 type Reported = { method: string; y: number; U: number; k: number | null; note: string | null } | null;
 type Result = {
@@ -20,8 +22,6 @@ type Result = {
   validation: { passed: boolean; delta: number; dLow: number; dHigh: number } | null;
 } | null;
 
-/** A unit after a figure in a fixed-width slot, so figures with and without a unit end in one column. */
-const UNIT = 'inline-block text-left text-ink-muted';
 
 /** Budget figures: four significant digits, × 10ⁿ outside 10⁻³ … 10⁶, U+2212 for negatives. */
 const sig = (x: number) => formatNumber(x, { digits: 4 });
@@ -68,7 +68,7 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
       )}
       {d.amends && (
         <Notice tone="warn" label={`Amendment of certificate ${d.amends.certificateNumber}`}>
-          Reason: {d.amends.reason.replace(/[.\s]+$/, '')}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
+          Reason: {withoutFinalStop(d.amends.reason)}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
         </Notice>
       )}
       <Cautions />
@@ -143,10 +143,10 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                             {/* Typeset as in the certificate's annex (ε_bb, λ_eff, δT_res); the model's identifier is the tooltip. */}
                             <Sym name={b.symbol} />
                           </td>
-                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <span className={`${UNIT} min-w-[2ch]`}>{d.unit}</span></td>
-                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <span className={`${UNIT} min-w-[2ch]`}>{d.unit}</span></td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <UnitSlot>{d.unit}</UnitSlot></td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <UnitSlot>{d.unit}</UnitSlot></td>
                           <td className="py-1 pr-2">{b.distribution}</td>
-                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)} <span className={`${UNIT} min-w-[4ch]`}>{sensitivityUnit(r.unit, d.unit)}</span></td>
+                          <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)} <UnitSlot wide>{sensitivityUnit(r.unit, d.unit)}</UnitSlot></td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{formatNumber(b.share * 100, { decimals: 1, notation: 'fixed' })} %</td>
                         </tr>
