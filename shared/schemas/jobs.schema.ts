@@ -102,22 +102,10 @@ export type JobDto = z.infer<typeof jobSchema>;
 export const jobViewSchema = jobSchema.extend({ amends: jobAmendsSchema.nullable() });
 export type JobView = z.infer<typeof jobViewSchema>;
 
-/** One row of the jobs list (GET /api/jobs). */
-export const jobListRowSchema = z.object({
-  id: z.string(),
-  number: z.string(),
-  status: z.enum(JOB_STATUSES),
-  itemLabel: z.string(),
-  calibratedOn: z.string().nullable(),
-  receivedOn: z.string().nullable(),
-  updatedAt: z.string(),
-  customerId: z.string(),
-  templateVersionId: z.string(),
-  customer: z.string(),
-  analyst: z.string(),
-  points: z.number(),
-  amends: jobAmendsSchema.nullable(),
-});
+/** One row of the jobs list (GET /api/jobs): some of the record, with names and counts. */
+export const jobListRowSchema = jobSchema
+  .pick({ id: true, number: true, status: true, itemLabel: true, calibratedOn: true, receivedOn: true, updatedAt: true, customerId: true, templateVersionId: true })
+  .extend({ customer: z.string(), analyst: z.string(), points: z.number(), amends: jobAmendsSchema.nullable() });
 export type JobListRow = z.infer<typeof jobListRowSchema>;
 export const jobListSchema = z.object({ jobs: z.array(jobListRowSchema), total: z.number(), page: z.number(), pageSize: z.number() });
 
