@@ -27,14 +27,53 @@ const descriptionSchema = z.string({ error: 'description must be a string' }).ma
 const minMax = <T extends { min: number; max: number }>(v: T) => v.min < v.max;
 const minMaxMessage = { message: 'min must be less than max', path: ['max'] };
 
-export const normalSchema = z.union([
-  z.object({ type: z.literal('normal'), mean: finite('mean'), sd: nonNegative('sd') }).strict(),
-  z.object({ type: z.literal('normal'), mean: finite('mean'), expanded: nonNegative('expanded'), k: positive('k') }).strict(),
-]);
-export const rectangularSchema = z.union([
-  z.object({ type: z.literal('rectangular'), min: finite('min'), max: finite('max') }).strict().refine(minMax, minMaxMessage),
-  z.object({ type: z.literal('rectangular'), mean: finite('mean'), halfWidth: positive('halfWidth') }).strict(),
-]);
+/** Normal with its standard deviation, or with an expanded uncertainty and its coverage factor. */
+type NormalBySd = { type: 'normal'; mean: number; sd: number };
+type NormalByExpanded = { type: 'normal'; mean: number; expanded: number; k: number };
+/** Rectangular by its limits, or by its centre and half-width. */
+type RectangularByLimits = { type: 'rectangular'; min: number; max: number };
+type RectangularByHalfWidth = { type: 'rectangular'; mean: number; halfWidth: number };
+
+/**
+ * One object schema per distribution type, so the distribution union is discriminated on `type`:
+ * a document is checked against its own type only, and a mistake is reported on the field that
+ * is wrong (a plain union tries every type in turn and, when none fits, can only say that none
+ * does). Normal and rectangular each accept two parameter sets; the check names the set that is
+ * incomplete or mixed.
+ */
+function oneParameterSet(type: string, sets: ReadonlyArray<readonly string[]>) {
+  return (v: Record<string, unknown>, ctx: z.RefinementCtx) => {
+    const given = sets.map((set) => set.filter((key) => v[key] !== undefined)).filter((keys) => keys.length > 0);
+    const used = sets.filter((set) => set.some((key) => v[key] !== undefined));
+    const describe = (set: readonly string[]) => set.join(' and ');
+    const expected = sets.map(describe).join(', or ');
+    if (used.length === 1) {
+      const set = used[0];
+      for (const key of set) {
+        if (v[key] === undefined) ctx.addIssue({ code: 'custom', message: `${type} given by ${describe(set)} also needs ${key}`, path: [key] });
+      }
+      return;
+    }
+    ctx.addIssue({
+      code: 'custom',
+      message: used.length === 0 ? `${type} needs ${expected}` : `${type} takes either ${expected}, not both`,
+      path: used.length === 0 ? [] : [given[1][0]],
+    });
+  };
+}
+
+const normalObject = z
+  .object({ type: z.literal('normal'), mean: finite('mean'), sd: nonNegative('sd').optional(), expanded: nonNegative('expanded').optional(), k: positive('k').optional() })
+  .strict()
+  .superRefine(oneParameterSet('normal', [['sd'], ['expanded', 'k']]));
+const rectangularObject = z
+  .object({ type: z.literal('rectangular'), min: finite('min').optional(), max: finite('max').optional(), mean: finite('mean').optional(), halfWidth: positive('halfWidth').optional() })
+  .strict()
+  .superRefine(oneParameterSet('rectangular', [['min', 'max'], ['mean', 'halfWidth']]))
+  .refine((v) => v.min === undefined || v.max === undefined || v.min < v.max, minMaxMessage);
+/** The schemas check one object per type; their output types keep the two parameter sets apart. */
+export const normalSchema = normalObject as unknown as z.ZodType<NormalBySd | NormalByExpanded>;
+export const rectangularSchema = rectangularObject as unknown as z.ZodType<RectangularByLimits | RectangularByHalfWidth>;
 export const triangularSchema = z
   .object({ type: z.literal('triangular'), min: finite('min'), max: finite('max'), mode: finite('mode').optional() })
   .strict()
@@ -70,14 +109,25 @@ export const DISTRIBUTION_TYPES = [
 ] as const;
 export type DistributionType = (typeof DISTRIBUTION_TYPES)[number];
 
-export const distributionSchema = z.union(
+export type Distribution =
+  | NormalBySd | NormalByExpanded | RectangularByLimits | RectangularByHalfWidth
+  | z.infer<typeof triangularSchema> | z.infer<typeof arcsineSchema> | z.infer<typeof trapezoidalSchema>
+  | z.infer<typeof curvilinearTrapezoidSchema> | z.infer<typeof studentTSchema> | z.infer<typeof readingsSchema>
+  | z.infer<typeof exponentialSchema> | z.infer<typeof gammaSchema> | z.infer<typeof constantSchema>;
+
+export const distributionSchema = z.discriminatedUnion(
+  'type',
   [
-    normalSchema, rectangularSchema, triangularSchema, arcsineSchema, trapezoidalSchema,
+    normalObject, rectangularObject, triangularSchema, arcsineSchema, trapezoidalSchema,
     curvilinearTrapezoidSchema, studentTSchema, readingsSchema, exponentialSchema, gammaSchema, constantSchema,
   ],
-  { error: `distribution must be one of: ${DISTRIBUTION_TYPES.join(', ')}, with its parameters` },
-);
-export type Distribution = z.infer<typeof distributionSchema>;
+  {
+    error: (issue) =>
+      issue.code === 'invalid_union'
+        ? `distribution type must be one of: ${DISTRIBUTION_TYPES.join(', ')}`
+        : 'distribution must be an object with a type and its parameters',
+  },
+) as unknown as z.ZodType<Distribution>;
 
 export const inputSchema = z
   .object({

@@ -91,6 +91,25 @@ describe('evaluate: contract', () => {
     expect(() => evaluate({ ...small, inputs: [{ symbol: 'a', dof: 0, distribution: { type: 'normal', mean: 1, sd: 1 } }] })).toThrow(/dof must be greater than zero/);
   });
 
+  it('names what is wrong with a distribution: an unknown type, a missing parameter, two parameter sets mixed', () => {
+    const issuesOf = (distribution: unknown) => {
+      try {
+        evaluateGum({ equations: ['y = a'], inputs: [{ symbol: 'a', distribution }] });
+      } catch (e) {
+        return (e as EngineError).issues!.map((i) => `${i.path.join('.')}: ${i.message}`);
+      }
+      return [];
+    };
+    expect(issuesOf({ type: 'lognormal', mean: 1 })).toEqual([expect.stringMatching(/^inputs\.0\.distribution\.type: distribution type must be one of: normal, rectangular, .*constant$/)]);
+    expect(issuesOf(3)).toEqual(['inputs.0.distribution: distribution must be an object with a type and its parameters']);
+    expect(issuesOf({ type: 'normal', mean: 1 })).toEqual(['inputs.0.distribution: normal needs sd, or expanded and k']);
+    expect(issuesOf({ type: 'normal', mean: 1, expanded: 0.2 })).toEqual(['inputs.0.distribution.k: normal given by expanded and k also needs k']);
+    expect(issuesOf({ type: 'normal', mean: 1, sd: 0.1, k: 2 })).toEqual(['inputs.0.distribution.k: normal takes either sd, or expanded and k, not both']);
+    expect(issuesOf({ type: 'rectangular', min: 0 })).toEqual(['inputs.0.distribution.max: rectangular given by min and max also needs max']);
+    expect(issuesOf({ type: 'rectangular', min: 0, halfWidth: 1 })).toEqual(['inputs.0.distribution.halfWidth: rectangular takes either min and max, or mean and halfWidth, not both']);
+    expect(issuesOf({ type: 'rectangular', mean: 0, halfWidth: 1 })).toEqual([]);
+  });
+
   it('u_c = 0 (JCGM 101 §9.4 with x₁ = 0): U = 0, validation null with a warning', () => {
     const r = evaluate({ equations: ['y = x^2'], inputs: [{ symbol: 'x', distribution: { type: 'normal', mean: 0, sd: 1 } }] }, { trials: 10_000, seed: 1 });
     expect(r.gum.U).toBe(0);
