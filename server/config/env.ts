@@ -136,6 +136,15 @@ const envSchema = z.object({
     }
     return n;
   }),
+  MONTE_CARLO_NICE: optionalText.transform((v, ctx) => {
+    if (v === undefined) return undefined;
+    const n = Number(v);
+    if (!Number.isInteger(n) || n < 0 || n > 19) {
+      ctx.addIssue({ code: 'custom', message: `MONTE_CARLO_NICE must be a whole number from 0 (same priority as the API) to 19 (lowest), got "${v}"` });
+      return z.NEVER;
+    }
+    return n;
+  }),
   EMBERLINE_CLOCK_OFFSET_DAYS: optionalText.transform((v, ctx) => {
     if (v === undefined) return 0;
     const n = Number(v);
@@ -189,6 +198,12 @@ export type Config = {
    * 0 off. SESSION_CACHE_SECONDS, default 5 s, and off under NODE_ENV=test unless set.
    */
   sessionCacheMs: number;
+  /**
+   * Linux nice value of the Monte Carlo worker threads (server/workers/thread-priority.ts), so
+   * that long runs yield the processor to API requests. MONTE_CARLO_NICE, default 10, and 0
+   * (unchanged) under NODE_ENV=test unless set.
+   */
+  monteCarloNice: number;
   /** Test-only: the server's clock runs this many days ahead (negative: behind). 0 normally. */
   clockOffsetDays: number;
   /** The lab's own signing P12 (path, passphrase); unset: a self-signed one under dataDir/signing. */
@@ -250,6 +265,7 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     clockOffsetDays: e.EMBERLINE_CLOCK_OFFSET_DAYS,
     signInRateLimit: { limit: e.SIGN_IN_RATE_LIMIT, windowMs: e.SIGN_IN_RATE_WINDOW_MINUTES * 60_000 },
     sessionCacheMs: (e.SESSION_CACHE_SECONDS ?? (e.NODE_ENV === 'test' ? 0 : 5)) * 1000,
+    monteCarloNice: e.MONTE_CARLO_NICE ?? (e.NODE_ENV === 'test' ? 0 : 10),
     signing: e.SIGNING_P12_PATH ? { p12Path: path.resolve(cwd, e.SIGNING_P12_PATH), passphrase: e.SIGNING_P12_PASSPHRASE ?? '' } : undefined,
   };
 }

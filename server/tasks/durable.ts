@@ -58,6 +58,8 @@ export type DurableRunnerOptions = {
   work?: boolean;
   /** Names this instance in task_runs.started_by / finished_by. */
   instanceId?: string;
+  /** Nice value of the Monte Carlo worker threads (MONTE_CARLO_NICE; 0 or omitted: unchanged). */
+  monteCarloNice?: number;
 };
 
 type Notice = { id: string; type: 'queued' | 'progress' | 'final'; done?: number; target?: number; elapsedMs?: number };
@@ -247,7 +249,7 @@ export function createDurableRunner(opts: DurableRunnerOptions): TaskRunner & { 
       }, PROGRESS_EVERY_MS);
       let out: McmTaskResult;
       try {
-        out = (await opts.pool().runTask('monte-carlo', { doc: payload.doc, trials: payload.trials, seed: payload.seed, shared })) as McmTaskResult;
+        out = (await opts.pool().runTask('monte-carlo', { doc: payload.doc, trials: payload.trials, seed: payload.seed, shared, nice: opts.monteCarloNice ?? 0 })) as McmTaskResult;
       } catch (err) {
         logger.error('Monte Carlo worker failed', { taskId: id, error: err });
         out = { ok: false, code: 'WORKER_FAILED', message: 'The calculation stopped unexpectedly. Run it again.' };

@@ -21,7 +21,13 @@ type Entry = {
   cancel: () => void;
 };
 
-export function createInProcessRunner(deps: { pool: () => WorkerPool; db: Db; logger: Logger }): TaskRunner {
+export function createInProcessRunner(deps: {
+  pool: () => WorkerPool;
+  db: Db;
+  logger: Logger;
+  /** Nice value of the Monte Carlo worker threads (MONTE_CARLO_NICE; 0 or omitted: unchanged). */
+  monteCarloNice?: number;
+}): TaskRunner {
   const tasks = new Map<string, Entry>();
   // eslint-disable-next-line @typescript-eslint/no-explicit-any
   const hooks = new Map<TaskKind, CompletionHook<any>>();
@@ -63,7 +69,7 @@ export function createInProcessRunner(deps: { pool: () => WorkerPool; db: Db; lo
     }, PROGRESS_EVERY_MS);
     deps
       .pool()
-      .runTask('monte-carlo', { doc: payload.doc, trials: payload.trials, seed: payload.seed, shared })
+      .runTask('monte-carlo', { doc: payload.doc, trials: payload.trials, seed: payload.seed, shared, nice: deps.monteCarloNice ?? 0 })
       .then(async (out) => {
         clearInterval(tick);
         const r = out as McmTaskResult;

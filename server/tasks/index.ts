@@ -34,7 +34,7 @@ export function createTaskRunner(opts: { config: Config; database: Database; log
   const pool = opts.pool ?? processWorkerPool;
   if (taskQueueMode(opts.config) === 'durable') {
     if (!opts.config.databaseUrl || opts.database.kind !== 'postgres') throw new Error('TASK_QUEUE=pgboss needs DATABASE_URL (a PostgreSQL server).');
-    return createDurableRunner({ connectionString: opts.config.databaseUrl, db: opts.database.db, pool, logger: opts.logger, concurrency: opts.config.taskConcurrency });
+    return createDurableRunner({ connectionString: opts.config.databaseUrl, db: opts.database.db, pool, logger: opts.logger, concurrency: opts.config.taskConcurrency, monteCarloNice: opts.config.monteCarloNice });
   }
-  return createInProcessRunner({ pool, db: opts.database.db, logger: opts.logger });
+  return createInProcessRunner({ pool, db: opts.database.db, logger: opts.logger, monteCarloNice: opts.config.monteCarloNice });
 }

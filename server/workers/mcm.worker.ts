@@ -6,15 +6,21 @@
  * Progress and cancellation share one SharedArrayBuffer with the main thread (it is shared, not
  * copied, when the task is posted): BigInt64 slots [0] cancel flag, [1] trials done, [2] target.
  * The engine reports progress after each chunk and polls `isCancelled` between chunks.
+ *
+ * `nice` (MONTE_CARLO_NICE) puts the thread in the background first (./thread-priority.ts), so
+ * that a long run takes only the processor time the API's requests leave.
  */
 import { evaluate, EngineError, type EvaluationResult } from '../../shared/engine';
 import { taskHandler } from './task-handler';
+import { lowerThreadPriority } from './thread-priority';
 
 export type McmTask = {
   doc: unknown;
   trials: number;
   seed: number;
   shared: SharedArrayBuffer;
+  /** Linux nice value for this worker thread (0–19; 0 or omitted: unchanged). */
+  nice?: number;
 };
 
 export type McmTaskResult = { ok: true; result: EvaluationResult } | { ok: false; code: string; message: string };
@@ -24,6 +30,7 @@ export const MCM_SHARED_BYTES = 3 * 8;
 
 export function runMcm(task: McmTask): McmTaskResult {
   const slots = new BigInt64Array(task.shared);
+  if (task.nice) lowerThreadPriority(task.nice);
   try {
     const result = evaluate(task.doc, {
       trials: task.trials,

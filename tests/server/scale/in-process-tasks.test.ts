@@ -6,6 +6,7 @@
 import fs from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createInProcessRunner, processWorkerPool, waitForEnd, type TaskEvent } from '../../../server/tasks';
+import { createWorkerPool } from '../../../server/workers/pool';
 import { silentLogger } from '../../../server/logger';
 import type { Db } from '../../../server/db/client';
 
@@ -45,5 +46,26 @@ describe('in-process task runner', () => {
 
   it('when the document is invalid, then run() rejects with the engine code', async () => {
     await expect(runner.run('monte-carlo', { doc: { equations: ['y = x +'], inputs: [] }, trials: 1000, seed: 1 })).rejects.toMatchObject({ name: 'TaskFailedError' });
+  }, 60_000);
+
+  it('when MONTE_CARLO_NICE is set, then the Monte Carlo worker thread runs at that nice value and the API thread keeps its own', async () => {
+    // Linux only: the nice value of each thread is field 19 of /proc/<pid>/task/<tid>/stat (proc(5)).
+    if (!fs.existsSync('/proc/thread-self')) return;
+    const niceOf = (tid: string) => Number(fs.readFileSync(`/proc/${process.pid}/task/${tid}/stat`, 'utf8').replace(/^.*\) /s, '').split(' ')[16]);
+    const threads = () => new Map(fs.readdirSync(`/proc/${process.pid}/task`).map((tid) => [tid, niceOf(tid)]));
+    const before = threads();
+    const pool = createWorkerPool({ maxThreads: 1 });
+    const niced = createInProcessRunner({ pool: () => pool, db: {} as Db, logger: silentLogger, monteCarloNice: 7 });
+    try {
+      const end = await niced.run('monte-carlo', { doc: BUDGET, trials: 10_000, seed: 5 });
+      expect(end.mcm?.trials).toBe(10_000);
+      const after = threads();
+      const newlyNiced = [...after].filter(([tid, nice]) => nice === 7 && before.get(tid) !== 7);
+      expect(newlyNiced).toHaveLength(1);
+      expect(after.get(String(process.pid))).toBe(before.get(String(process.pid)));
+    } finally {
+      await niced.stop();
+      await pool.destroy();
+    }
   }, 60_000);
 });
