@@ -3,6 +3,8 @@ import type { UniformSource } from '../types';
 const TWO_POW_26 = 67_108_864;
 const TWO_POW_28 = 268_435_456;
 const TWO_POW_M52 = 2 ** -52;
+/** Jump polynomial for 2^64 steps (Blackman & Vigna, xoshiro128starstar.c). */
+const JUMP = [0x8764000b, 0xf542d2d3, 0x6fa035c3, 0x77f2db5b] as const;
 
 /**
  * Ziggurat tables for N(0,1), 128 layers (Marsaglia & Tsang, J. Stat. Softw. 5(8) 2000): with
@@ -149,6 +151,35 @@ export class Xoshiro128StarStar implements UniformSource {
       if (z === z) out[k++] = a & 128 ? -z : z;
     }
     this.s0 = s0; this.s1 = s1; this.s2 = s2; this.s3 = s3;
+  }
+
+  /**
+   * Advance the stream by 2^64 outputs: the jump function of Blackman & Vigna's reference code
+   * (xoshiro128starstar.c, "equivalent to 2^64 calls to next(); it can be used to generate 2^64
+   * non-overlapping subsequences for parallel computations"), with its polynomial
+   * 0x8764000b, 0xf542d2d3, 0x6fa035c3, 0x77f2db5b. The Monte Carlo engine gives each block of
+   * trials its own subsequence this way (../mcm/run-monte-carlo.ts).
+   */
+  jump(): void {
+    let j0 = 0, j1 = 0, j2 = 0, j3 = 0;
+    for (let w = 0; w < 4; w++) {
+      const word = JUMP[w];
+      for (let b = 0; b < 32; b++) {
+        if (word & (1 << b)) { j0 ^= this.s0; j1 ^= this.s1; j2 ^= this.s2; j3 ^= this.s3; }
+        this.nextUint32();
+      }
+    }
+    this.s0 = j0; this.s1 = j1; this.s2 = j2; this.s3 = j3;
+  }
+
+  /** Write the state into `into` at `at` (four 32-bit words), e.g. to hand a stream to a worker thread. */
+  saveState(into: Uint32Array, at = 0): void {
+    into[at] = this.s0; into[at + 1] = this.s1; into[at + 2] = this.s2; into[at + 3] = this.s3;
+  }
+
+  /** Take the state written by saveState. */
+  loadState(from: Uint32Array, at = 0): void {
+    this.s0 = from[at] | 0; this.s1 = from[at + 1] | 0; this.s2 = from[at + 2] | 0; this.s3 = from[at + 3] | 0;
   }
 
   /** The current state (for tests and reproducibility records). */

@@ -23,6 +23,22 @@ describe('xoshiro128**', () => {
     expect(Array.from(out)).toEqual(reference.uniform_state_1_2_3_4);
   });
 
+  it('jump() advances the state by 2^64 steps: the state computed independently by squaring the update matrix over GF(2) 64 times', () => {
+    const g = new Xoshiro128StarStar([1, 2, 3, 4]);
+    g.jump();
+    expect(g.state()).toEqual(reference.state_1_2_3_4_after_2_pow_64_steps);
+  });
+
+  it('saveState and loadState carry a stream to another generator, which then gives the same numbers', () => {
+    const a = createRandom(7);
+    a.next();
+    const words = new Uint32Array(8);
+    a.saveState(words, 4);
+    const b = new Xoshiro128StarStar([9, 9, 9, 9]);
+    b.loadState(words, 4);
+    expect(Array.from({ length: 5 }, () => b.nextNormal())).toEqual(Array.from({ length: 5 }, () => a.nextNormal()));
+  });
+
   it('seeds through SplitMix64 as the reference does', () => {
     const sm = splitMix64(1n);
     expect(Array.from({ length: 4 }, () => sm().toString())).toEqual(reference.splitmix64_seed_1);
