@@ -45,6 +45,12 @@ describe('an analyst carries a job from a template to submission', () => {
     await page.getByRole('button', { name: 'Add point' }).click();
     await page.getByRole('tab', { name: /Point 1/ }).waitFor();
 
+    // The checks name each input as the budget table typesets it (ε_bb, not the identifier eps_bb).
+    const toFix = page.getByRole('list', { name: 'What to fix before submitting' });
+    await toFix.getByText('✕ Point 1: ε_bb has no value yet: take it from a reference standard.', { exact: true }).waitFor();
+    expect(await toFix.textContent()).not.toContain('eps_bb');
+    await page.screenshot({ path: screenshotPath('11-checks-new-point'), fullPage: true });
+
     // Readings of the instrument from a CSV file.
     await page.locator('tr[data-input="T_ind"]').getByRole('button', { name: /upload readings/i }).click();
     await page.getByLabel('Readings file').setInputFiles(CSV);

@@ -249,6 +249,12 @@ describe('submission checks', () => {
     expect(codes).toContain('-:NO_RESULT');
     expect(issues.every((i) => i.path[1] === p.id)).toBe(true);
     expect(issues.find((i) => i.path[3] === 'STANDARD_OVERDUE')!.message).toMatch(/due on 2026-11-15/);
+    // Messages name the input as the budget table writes it (ISO 80000-1 §7.1: ε for eps, the
+    // subscript after "_"); the model identifier stays in the path, where the client places it.
+    const message = (symbol: string, code: string) => issues.find((i) => i.path[2] === symbol && i.path[3] === code)!.message;
+    expect(message('eps_bb', 'STANDARD_OVERDUE')).toMatch(/^Point 1: ε_bb comes from Old cavity blackbody/);
+    expect(message('T_ind', 'INPUT_MISSING')).toBe('Point 1: T_ind has no value yet: enter or upload its readings.');
+    expect(issues.map((i) => i.message).join('\n')).not.toMatch(/eps_bb/);
     const after = await analyst.get(`/api/jobs/${job.id}`).expect(200);
     expect(after.body.job.status).toBe('draft');
   });
@@ -265,7 +271,7 @@ describe('submission checks', () => {
     const res = await analyst.post(`/api/jobs/${job.id}/submit`).expect(422);
     const below = (res.body.error.issues as Array<{ path: string[]; message: string }>).filter((i) => i.path[3] === 'U_BELOW_CMC');
     expect(below).toHaveLength(1);
-    expect(below[0].message).toMatch(/below the CMC of 0\.50 K/);
+    expect(below[0].message).toMatch(/^Point 1: U = \d\.\d\d K is below the CMC of 0\.50 K/);
     await analyst.patch(`/api/points/${p.id}`).send({ outsideScope: true }).expect(400);
     await analyst.patch(`/api/points/${p.id}`).send({ outsideScope: true, outsideScopeReason: 'Customer asked for the instrument’s own repeatability only.' }).expect(200);
     const ok = await analyst.post(`/api/jobs/${job.id}/submit`).expect(200);

@@ -9,8 +9,14 @@
  * - The reported U is not below the CMC for the point (ILAC-P14:09/2020 §5.4), unless the point
  *   is marked outside the scope of accreditation with a reason.
  * - No reference standard used is past its due date on the day of the check.
+ *
+ * Messages name an input by its symbol as the budget table writes it (ε_bb for eps_bb, ISO
+ * 80000-1 §7.1) and figures as shared/format prints them; the model identifier stays in the
+ * reason's `symbol` field, which the client uses to place the reason beside its input.
  */
 import type { EvaluationResult } from '../../../shared/engine';
+import { formatQuantity, printedUnit } from '../../../shared/format/units';
+import { symbolPlain } from '../../../shared/format/symbols';
 import type { PointInput, SubmitReason } from '../../../shared/schemas/jobs.schema';
 import type { TemplateDefinition } from '../../../shared/schemas/template.schema';
 import type { BudgetStandard } from './sources';
@@ -95,17 +101,18 @@ export function checkJob(args: {
   for (const p of args.points) {
     const label = `Point ${p.position}`;
     for (const input of p.inputs) {
+      const name = symbolPlain(input.symbol);
       if (input.distribution === null) {
         const how = input.source === 'readings' ? 'enter or upload its readings' : input.source === 'reference' ? 'take it from a reference standard' : 'enter its value and distribution';
-        add(reasons, 'INPUT_MISSING', `${label}: ${input.symbol} has no value yet: ${how}.`, p, input.symbol);
+        add(reasons, 'INPUT_MISSING', `${label}: ${name} has no value yet: ${how}.`, p, input.symbol);
       } else if (input.source === 'reference' && !input.standardId) {
-        add(reasons, 'REFERENCE_NOT_NAMED', `${label}: ${input.symbol} should come from a reference standard's certificate: pick the standard used.`, p, input.symbol);
+        add(reasons, 'REFERENCE_NOT_NAMED', `${label}: ${name} should come from a reference standard's certificate: pick the standard used.`, p, input.symbol);
       }
       if (input.standardId) {
         const s = args.standards.get(input.standardId);
-        if (!s) add(reasons, 'STANDARD_UNKNOWN', `${label}: the reference standard of ${input.symbol} is not in the register.`, p, input.symbol);
+        if (!s) add(reasons, 'STANDARD_UNKNOWN', `${label}: the reference standard of ${name} is not in the register.`, p, input.symbol);
         else if (s.dueDate && s.dueDate < args.today)
-          add(reasons, 'STANDARD_OVERDUE', `${label}: ${input.symbol} comes from ${s.name}${s.identifier ? ` (${s.identifier})` : ''}, whose calibration was due on ${s.dueDate}: recalibrate it or use another standard.`, p, input.symbol);
+          add(reasons, 'STANDARD_OVERDUE', `${label}: ${name} comes from ${s.name}${s.identifier ? ` (${s.identifier})` : ''}, whose calibration was due on ${s.dueDate}: recalibrate it or use another standard.`, p, input.symbol);
       }
     }
     if (!p.result) {
@@ -121,7 +128,8 @@ export function checkJob(args: {
     if (cmc === null) {
       if (!scoped) add(reasons, 'OUTSIDE_CMC_RANGE', `${label}: the point lies outside every CMC range of the model: mark it as outside the scope of accreditation, with the reason.`, p);
     } else if (cmc && rep.U < cmc.U * (1 - 1e-9)) {
-      const msg = `${label}: U = ${rep.U.toPrecision(2)} ${p.result.unit} is below the CMC of ${cmc.U.toPrecision(2)} ${p.result.unit} for this range (ILAC-P14 §5.4): check the budget, or mark the point outside the scope of accreditation with the reason.`;
+      const unit = printedUnit(p.result.unit);
+      const msg = `${label}: U = ${formatQuantity(rep.U, unit, { digits: 2 })} is below the CMC of ${formatQuantity(cmc.U, unit, { digits: 2 })} for this range (ILAC-P14 §5.4): check the budget, or mark the point outside the scope of accreditation with the reason.`;
       if (!scoped) add(reasons, 'U_BELOW_CMC', msg, p);
       else add(notes, 'OUTSIDE_SCOPE', `${label}: reported outside the scope of accreditation: ${p.outsideScopeReason}`, p);
     }
