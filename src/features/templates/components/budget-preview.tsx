@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useMemo } from 'react';
 import { EngineError, evaluateGum, type EvaluationResult } from '../../../../shared/engine';
 import { api, ApiError } from '../../../lib/api-client';
-import { formatCoverageFactor, formatNumber, formatQuantity, formatResult, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
+import { formatCoverageFactor, formatNumber, formatQuantity, formatResult, inDisplayUnit, printedUnit, sensitivityUnit } from '../../../../shared/format';
 import { budgetFromTemplate, type TemplateDefinition } from '../../../../shared/schemas/template.schema';
 import { Notice } from '../../../components/ui/notice';
 import { MathTex, Sym } from './math-tex';
@@ -57,6 +57,7 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
     return <Notice tone="warn" label="The model cannot be evaluated yet">{out && 'error' in out ? out.error : ''}</Notice>;
   }
   const { gum, unit } = out.result;
+  const yUnit = printedUnit(unit);
   const inputs = new Map(definition.inputs.map((i) => [i.symbol, i]));
   const ySym = definition.measurand.symbol;
   const nuEff = gum.nuEff === 'infinite' ? '∞' : gum.nuEff === null ? 'not applicable (correlated inputs)' : formatNumber(gum.nuEff, { digits: 3 });
@@ -90,7 +91,7 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
                 <td className="numeric px-2 whitespace-nowrap">{formatQuantity(d.u, d.unit, { digits: 3 })}</td>
                 <td className="px-2 text-ink-muted">{DIST_WORDS[row.distribution] ?? row.distribution}</td>
                 <td className="numeric px-2 whitespace-nowrap">{n3(d.c)}{cUnit && <span className="text-ink-muted"> {cUnit}</span>}</td>
-                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.contribution, unit === '1' ? '' : unit, { digits: 3 })}</td>
+                <td className="numeric px-2 whitespace-nowrap">{formatQuantity(row.contribution, yUnit, { digits: 3 })}</td>
                 <td className="numeric px-2">{row.dof === 'infinite' ? '∞' : formatNumber(row.dof, { digits: 3 })}</td>
                 <td className="pl-2">
                   <span className="flex items-center gap-2">
@@ -108,19 +109,19 @@ export function BudgetPreview({ definition }: { definition: TemplateDefinition |
       </div>
       <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-sm">
         <dt><Sym name={ySym} /></dt>
-        <dd className="numeric text-left">{formatQuantity(gum.y, unit === '1' ? '' : unit, { digits: 7 })}</dd>
+        <dd className="numeric text-left">{formatQuantity(gum.y, yUnit, { digits: 7 })}</dd>
         <dt><MathTex tex={`u_{\\mathrm{c}}(${ySym.length === 1 ? ySym : 'y'})`} /></dt>
-        <dd className="numeric text-left">{formatQuantity(gum.u, unit === '1' ? '' : unit, { digits: 3 })}</dd>
+        <dd className="numeric text-left">{formatQuantity(gum.u, yUnit, { digits: 3 })}</dd>
         <dt><MathTex tex="\nu_{\mathrm{eff}}" /></dt>
         <dd className="numeric text-left">{nuEff}</dd>
         <dt><MathTex tex="k" /></dt>
         <dd className="numeric text-left">{formatCoverageFactor(gum.k)}</dd>
         <dt><MathTex tex="U" /></dt>
-        <dd className="numeric text-left">{formatQuantity(gum.U, unit === '1' ? '' : unit, { digits: 2 })}</dd>
+        <dd className="numeric text-left">{formatQuantity(gum.U, yUnit, { digits: 2 })}</dd>
       </dl>
       <p className="text-sm">
         <span className="font-semibold">Result at the defaults: </span>
-        <span className="font-mono tabular-nums">{formatResult(gum.y, gum.U, unit === '1' ? '' : unit, gum.k, gum.coverage)}</span>
+        <span className="font-mono tabular-nums">{formatResult(gum.y, gum.U, yUnit, gum.k, gum.coverage)}</span>
       </p>
       {out.result.warnings.length > 0 && (
         <Notice tone="info" label="Notes from the calculation">
