@@ -1,5 +1,5 @@
 import type { CorrelationGroup } from './correlation-groups';
-import { fillStandardNormal, type RandomSource } from './standard-normal';
+import { nextStandardNormal, type RandomSource } from './standard-normal';
 
 /** Fills the columns of a group of jointly normal inputs. */
 export interface GroupSampler {
@@ -10,21 +10,22 @@ export interface GroupSampler {
  * Jointly normal sampling of correlated inputs (JCGM 101:2008 §6.4.8): with R = L Lᵀ the Cholesky
  * factor of the correlation matrix and z ~ N(0, I), x_i = μ_i + σ_i Σ_{j≤i} L_ij z_j has means μ,
  * standard deviations σ and correlation matrix R. `columns[k]` belongs to the k-th member of the
- * group (means[k], sds[k]). The transform runs in place, last row first, so the z_j (j < i)
- * a row needs are still untouched.
+ * group (means[k], sds[k]). The z of one trial are drawn together, trial after trial, so the
+ * stream is consumed in trial order and any split of the trials into chunks gives the same values.
  */
 export function createCorrelatedNormalSampler(group: CorrelationGroup, means: number[], sds: number[]): GroupSampler {
   const L = group.factor.map((row) => Float64Array.from(row));
   const m = L.length;
+  const z = new Float64Array(m);
   return {
     fill(rng, columns, n) {
-      for (let k = 0; k < m; k++) fillStandardNormal(rng, columns[k], n);
-      for (let i = m - 1; i >= 0; i--) {
-        const row = L[i], out = columns[i], mu = means[i], sd = sds[i], lii = row[i];
-        for (let t = 0; t < n; t++) {
-          let s = lii * out[t];
-          for (let j = 0; j < i; j++) s += row[j] * columns[j][t];
-          out[t] = mu + sd * s;
+      for (let t = 0; t < n; t++) {
+        for (let k = 0; k < m; k++) z[k] = nextStandardNormal(rng);
+        for (let i = 0; i < m; i++) {
+          const row = L[i];
+          let s = 0;
+          for (let j = 0; j <= i; j++) s += row[j] * z[j];
+          columns[i][t] = means[i] + sds[i] * s;
         }
       }
     },
