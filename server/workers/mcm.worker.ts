@@ -10,7 +10,9 @@
  * `nice` (MONTE_CARLO_NICE) puts the thread in the background first (./thread-priority.ts), so
  * that a long run takes only the processor time the API's requests leave.
  */
-import { evaluate, EngineError, type EvaluationResult } from '../../shared/engine';
+import { move } from 'piscina';
+import { compileModel, computeBlock, evaluate, EngineError, type BlockTask, type EvaluationResult } from '../../shared/engine';
+import type { TrialSampler } from '../../shared/engine/mcm';
 import { taskHandler } from './task-handler';
 import { lowerThreadPriority } from './thread-priority';
 
@@ -48,4 +50,36 @@ export function runMcm(task: McmTask): McmTaskResult {
   }
 }
 
-export default taskHandler({ 'monte-carlo': (payload: McmTask) => runMcm(payload) });
+/** One block of a run shared among threads (shared/engine/mcm/run-in-blocks.ts). */
+export type McmBlockTask = BlockTask & { nice?: number };
+/** The block's model values (moved, not copied, to the caller), or the engine's refusal. */
+export type McmBlockResult = Float64Array | { code: string; message: string };
+
+// The blocks of one run arrive one after another with the same document: keep its compiled model
+// and the sampler's column buffers (5 MiB for ten inputs) for the next block.
+const recent = new Map<string, { model: ReturnType<typeof compileModel>; reuse: { sampler?: TrialSampler } }>();
+
+export function runMcmBlock(task: McmBlockTask): McmBlockResult {
+  if (task.nice) lowerThreadPriority(task.nice);
+  try {
+    const key = JSON.stringify(task.doc);
+    let entry = recent.get(key);
+    if (!entry) {
+      entry = { model: compileModel(task.doc), reuse: {} };
+      recent.clear();
+      recent.set(key, entry);
+    }
+    return computeBlock(task, entry.model, entry.reuse);
+  } catch (err) {
+    if (err instanceof EngineError) return { code: err.code, message: err.message };
+    return { code: 'WORKER_FAILED', message: err instanceof Error ? err.message : String(err) };
+  }
+}
+
+export default taskHandler({
+  'monte-carlo': (payload: McmTask) => runMcm(payload),
+  'monte-carlo-block': (payload: McmBlockTask) => {
+    const r = runMcmBlock(payload);
+    return r instanceof Float64Array ? move(r) : r;
+  },
+});

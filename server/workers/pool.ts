@@ -22,6 +22,7 @@ import type { CertificateData } from '../../shared/schemas/certificate.schema';
 export const TASKS = {
   'render-certificate': 'pdf',
   'monte-carlo': 'mcm',
+  'monte-carlo-block': 'mcm',
 } as const satisfies Record<string, string>;
 
 export type TaskName = keyof typeof TASKS;
@@ -32,6 +33,8 @@ export interface WorkerPoolOptions {
   maxThreads?: number;
   /** Folder holding the built `<name>.worker.js` files; found automatically when omitted. */
   builtWorkersDir?: string;
+  /** Threads started at once and kept (default 0: started on demand). */
+  minThreads?: number;
   /** Idle threads end after this many ms (default 30 s). */
   idleTimeout?: number;
 }
@@ -69,7 +72,7 @@ export function createWorkerPool(options: WorkerPoolOptions = {}): WorkerPool {
     let pool = pools.get(name);
     if (!pool) {
       const { filename, workerData } = workerFile(name, options.builtWorkersDir);
-      pool = new Piscina({ filename, workerData, minThreads: 0, maxThreads, idleTimeout: options.idleTimeout ?? 30_000 });
+      pool = new Piscina({ filename, workerData, minThreads: options.minThreads ?? 0, maxThreads, idleTimeout: options.idleTimeout ?? 30_000 });
       pools.set(name, pool);
     }
     return pool;

@@ -3,7 +3,7 @@
  * no I/O, no clock and no hidden randomness; the same code runs in the browser (live GUM budget)
  * and on the server (the authoritative stored result).
  */
-export { evaluate, evaluateGum, parseBudget, ENGINE_VERSION, type EvaluateOptions } from './evaluate';
+export { evaluate, evaluateGum, evaluateInBlocks, parseBudget, ENGINE_VERSION, type EvaluateOptions } from './evaluate';
 export { EngineError, type EngineErrorCode } from './errors';
 export type * from './types';
 
@@ -32,7 +32,7 @@ export { reportResult, roundUncertainty, formatAtPlace, type ReportedStrings, ty
 
 // Distributions, Monte Carlo, validation, radiometry (shared/engine/{distributions,mcm,validation,radiometry})
 export { summarizeInput, createSampler } from './distributions';
-export { runMonteCarlo } from './mcm';
+export { runMonteCarlo, runMonteCarloInBlocks, computeBlock, type BlockTask, type BlockRunner } from './mcm';
 export { validateGumAgainstMcm } from './validation';
 export {
   RADIOMETRIC_FUNCTIONS,

@@ -1,6 +1,6 @@
 import { correlationGroups, createCorrelatedNormalSampler, createSampler, resolveDistribution, type RandomSource } from '../distributions';
 import { EngineError } from '../errors';
-import { createStreams } from '../random';
+import { createStreams, type Xoshiro128StarStar } from '../random';
 import type { BudgetDocument, CompiledModel, McmOptions, McmResult } from '../types';
 import { numericalTolerance } from '../validation';
 import { coverageInterval } from './coverage-interval';
@@ -9,46 +9,115 @@ import { OutputAccumulator } from './output-accumulator';
 /** Default number of trials per chunk (2^16: 512 KiB per input column). */
 export const DEFAULT_CHUNK = 1 << 16;
 
+/**
+ * Trials per block. Block b holds trials b·2^16 … (b + 1)·2^16 − 1, and each input draws them
+ * from its own stream advanced by b jumps of 2^64 outputs (xoshiro128** jump(), the
+ * "non-overlapping subsequences for parallel computations" of Blackman & Vigna). A block uses far
+ * fewer than 2^64 outputs, so blocks never share numbers, and any block can be computed on its
+ * own: the trials, and so the result, depend only on the seed, never on the chunk size or on how
+ * many threads share the blocks (./run-in-blocks.ts).
+ */
+export const BLOCK_TRIALS = 1 << 16;
+
 interface Step {
-  rng: RandomSource;
-  fill(n: number): void;
+  /** Fill trials [at, at + n) of the columns. */
+  fill(n: number, at: number): void;
 }
 
-function buildPlan(doc: BudgetDocument, model: CompiledModel, seed: number, chunk: number) {
-  const docIndex = new Map(doc.inputs.map((input, i) => [input.symbol, i]));
-  const columnOf = new Map<number, Float64Array>();
-  const columns = model.inputSymbols.map((symbol) => {
-    const i = docIndex.get(symbol);
-    if (i === undefined) throw new EngineError('INVALID_DOCUMENT', `the model uses "${symbol}", which is not an input of the document`);
-    const col = new Float64Array(chunk);
-    columnOf.set(i, col);
-    return col;
-  });
-  // Stream i belongs to doc.inputs[i]: samples of one input do not depend on the others.
-  const streams = createStreams(seed, doc.inputs.length);
-  const groups = correlationGroups(doc);
-  const grouped = new Set(groups.flatMap((g) => g.indices));
-  const steps: Step[] = [];
-  for (const g of groups) {
-    const resolved = g.indices.map((i) => resolveDistribution(doc.inputs[i].distribution, doc.inputs[i].symbol));
-    const means = resolved.map((r) => (r.type === 'normal' ? r.mean : NaN));
-    const sds = resolved.map((r) => (r.type === 'normal' ? r.sd : NaN));
-    const sampler = createCorrelatedNormalSampler(g, means, sds);
-    const cols = g.indices.map((i) => columnOf.get(i) ?? new Float64Array(chunk));
-    const rng = streams[g.indices[0]];
-    steps.push({ rng, fill: (n) => sampler.fill(rng, cols, n) });
+const part = (col: Float64Array, at: number, n: number) => (at === 0 && n === col.length ? col : col.subarray(at, at + n));
+
+/**
+ * The samplers of one budget document and their column buffers (one per model input, in the
+ * model's order), reused chunk after chunk. `streams[i]` belongs to `doc.inputs[i]`; correlated
+ * normal inputs are drawn jointly from the stream of the first of their group.
+ */
+export class TrialSampler {
+  readonly columns: Float64Array[];
+  private readonly steps: Step[];
+
+  constructor(doc: BudgetDocument, model: CompiledModel, readonly streams: Xoshiro128StarStar[], capacity: number) {
+    const docIndex = new Map(doc.inputs.map((input, i) => [input.symbol, i]));
+    const columnOf = new Map<number, Float64Array>();
+    this.columns = model.inputSymbols.map((symbol) => {
+      const i = docIndex.get(symbol);
+      if (i === undefined) throw new EngineError('INVALID_DOCUMENT', `the model uses "${symbol}", which is not an input of the document`);
+      const col = new Float64Array(capacity);
+      columnOf.set(i, col);
+      return col;
+    });
+    const groups = correlationGroups(doc);
+    const grouped = new Set(groups.flatMap((g) => g.indices));
+    const steps: Step[] = [];
+    for (const g of groups) {
+      const resolved = g.indices.map((i) => resolveDistribution(doc.inputs[i].distribution, doc.inputs[i].symbol));
+      const means = resolved.map((r) => (r.type === 'normal' ? r.mean : NaN));
+      const sds = resolved.map((r) => (r.type === 'normal' ? r.sd : NaN));
+      const sampler = createCorrelatedNormalSampler(g, means, sds);
+      const cols = g.indices.map((i) => columnOf.get(i) ?? new Float64Array(capacity));
+      const rng = streams[g.indices[0]];
+      steps.push({ fill: (n, at) => sampler.fill(rng, cols.map((c) => part(c, at, n)), n) });
+    }
+    doc.inputs.forEach((input, i) => {
+      const sampler = createSampler(input.distribution, input.symbol); // validates even unused inputs
+      const col = columnOf.get(i);
+      if (grouped.has(i) || !col) return;
+      const rng: RandomSource = streams[i];
+      steps.push({ fill: (n, at) => sampler.fill(rng, part(col, at, n), n) });
+    });
+    this.steps = steps;
   }
-  doc.inputs.forEach((input, i) => {
-    const sampler = createSampler(input.distribution, input.symbol); // validates even unused inputs
-    const col = columnOf.get(i);
-    if (grouped.has(i) || !col) return;
-    const rng = streams[i];
-    steps.push({ rng, fill: (n) => sampler.fill(rng, col, n) });
-  });
-  return { columns, steps };
+
+  /** Draw trials [at, at + n) of every column from the streams' current states. */
+  fill(n: number, at = 0): void {
+    for (let s = 0; s < this.steps.length; s++) this.steps[s].fill(n, at);
+  }
+
+  /** Put every stream at the state saved in `states` (4 words per stream, as saveStates writes). */
+  loadStates(states: Uint32Array): void {
+    this.streams.forEach((g, i) => g.loadState(states, 4 * i));
+  }
 }
 
-function checkOptions(opts: McmOptions): void {
+/** The start states of every input's stream for blocks 0, 1, 2, … in turn (one jump per block). */
+export class BlockStarts {
+  private readonly streams: Xoshiro128StarStar[];
+  private block = 0;
+
+  constructor(seed: number, count: number) {
+    this.streams = createStreams(seed, count);
+  }
+
+  /** The states for the next block (4 words per stream), then advance to the one after. */
+  next(): { block: number; states: Uint32Array } {
+    const states = new Uint32Array(4 * this.streams.length);
+    this.streams.forEach((g, i) => {
+      g.saveState(states, 4 * i);
+      g.jump();
+    });
+    return { block: this.block++, states };
+  }
+}
+
+/**
+ * Throw EngineError('NON_FINITE') when a model value in out[0..n) is NaN or ±∞, naming the count,
+ * the trial numbers (1-based; the chunk starts at trial `first` + 1) and the inputs of the first.
+ */
+export function checkFinite(out: Float64Array, n: number, first: number, model: CompiledModel, columns: Float64Array[]): void {
+  let bad = 0, at = -1;
+  for (let t = 0; t < n; t++) {
+    const v = out[t];
+    if (v - v !== 0) { bad++; if (at < 0) at = t; }
+  }
+  if (bad === 0) return;
+  const where = model.inputSymbols.map((s, j) => `${s} = ${columns[j][at]}`).join(', ');
+  throw new EngineError(
+    'NON_FINITE',
+    `the model value is not finite (NaN or ±∞) in ${bad} of ${n} trials (trials ${first + 1}–${first + n}); first at trial ${first + at + 1} with ${where}`,
+  );
+}
+
+/** Refuse bad run options (EngineError INVALID_DOCUMENT naming the option). */
+export function checkOptions(opts: McmOptions): void {
   const bad = (m: string): never => { throw new EngineError('INVALID_DOCUMENT', m); };
   if (!Number.isSafeInteger(opts.trials) || opts.trials < 1) bad(`trials must be a whole number ≥ 1, got ${opts.trials}`);
   if (!Number.isSafeInteger(opts.seed) || opts.seed < 0) bad(`seed must be a whole number ≥ 0, got ${opts.seed}`);
@@ -73,9 +142,11 @@ function sampleMeanSd(values: number[]): { mean: number; sdOfMean: number } {
  * Each input is drawn from its own seeded stream (xoshiro128**, see ../random) by its §6.4
  * sampler, correlated normal inputs jointly through a Cholesky factor (§6.4.8); trials run in
  * chunks of `chunkSize` (default 2^16) through the compiled model's vectorised kernel, so memory
- * is a few chunk buffers plus the bounded output store of OutputAccumulator, whatever M. Because
- * every sampler consumes its stream trial by trial, the result for a seed does not depend on the
- * chunk size.
+ * is a few chunk buffers plus the bounded output store of OutputAccumulator, whatever M. Every
+ * block of 2^16 trials draws from its own subsequence of each stream (BLOCK_TRIALS) and every
+ * sampler consumes its stream trial by trial, so the result for a seed depends neither on the
+ * chunk size nor on whether the blocks are computed here or shared among threads
+ * (runMonteCarloInBlocks).
  *
  * Results (§7.6–7.7): y = mean of the model values, u = their standard deviation, the
  * probabilistically symmetric or shortest coverage interval for `coverage`, and a plot histogram.
@@ -103,27 +174,26 @@ export function runMonteCarlo(doc: BudgetDocument, model: CompiledModel, opts: M
   const ceiling = opts.trials;
   const batchSize = Math.max(Math.ceil(100 / (1 - p) - 1e-9), 10_000);
   const chunk = Math.max(1, Math.min(opts.chunkSize ?? DEFAULT_CHUNK, opts.adaptive ? batchSize : ceiling));
-  const { columns, steps } = buildPlan(doc, model, opts.seed, chunk);
+  const count = doc.inputs.length;
+  const starts = new BlockStarts(opts.seed, count);
+  const sampler = new TrialSampler(doc, model, createStreams(opts.seed, count), chunk);
+  const { columns } = sampler;
   const out = new Float64Array(chunk);
   const acc = new OutputAccumulator(opts.adaptive ? Math.min(ceiling, 8 * batchSize) : ceiling, p);
   let done = 0;
 
   const runChunk = (n: number): void => {
     if (opts.isCancelled?.()) throw new EngineError('CANCELLED', `Monte Carlo run cancelled after ${done} trials`);
-    for (let s = 0; s < steps.length; s++) steps[s].fill(n);
+    // Split the chunk where a block begins: the streams then start from that block's states.
+    for (let at = 0; at < n; ) {
+      const t = done + at;
+      if (t % BLOCK_TRIALS === 0) sampler.loadStates(starts.next().states);
+      const len = Math.min(n - at, BLOCK_TRIALS - (t % BLOCK_TRIALS));
+      sampler.fill(len, at);
+      at += len;
+    }
     model.kernel(columns, out, n);
-    let bad = 0, first = -1;
-    for (let t = 0; t < n; t++) {
-      const v = out[t];
-      if (v - v !== 0) { bad++; if (first < 0) first = t; }
-    }
-    if (bad > 0) {
-      const where = model.inputSymbols.map((s, j) => `${s} = ${columns[j][first]}`).join(', ');
-      throw new EngineError(
-        'NON_FINITE',
-        `the model value is not finite (NaN or ±∞) in ${bad} of ${n} trials (trials ${done + 1}–${done + n}); first at trial ${done + first + 1} with ${where}`,
-      );
-    }
+    checkFinite(out, n, done, model, columns);
     acc.add(out, n);
     done += n;
   };

@@ -40,6 +40,17 @@ describe('npm run evaluate', () => {
     expect(result.engineVersion).toMatch(/^emberline-engine /);
   }, 120_000);
 
+  it('--threads 2 shares the trials among worker threads and prints the same result as one thread', async () => {
+    const [one, two] = await Promise.all([
+      run(fixture, '--trials', '150000', '--seed', '11'),
+      run(fixture, '--trials', '150000', '--seed', '11', '--threads', '2'),
+    ]);
+    expect(two.stderr).toBe('');
+    expect(two.status).toBe(0);
+    expect(JSON.parse(two.stdout).mcm.trials).toBe(150000);
+    expect(two.stdout).toBe(one.stdout);
+  }, 180_000);
+
   it('--no-mcm gives null mcm and validation', async () => {
     const r = await run(fixture, '--no-mcm');
     expect(r.status).toBe(0);
@@ -81,7 +92,9 @@ describe('npm run evaluate', () => {
   }, 240_000);
 
   it('parses its options and refuses bad ones with a message', () => {
-    expect(parseArgs(['f.json', '--trials', '5000', '--seed', '3', '--no-mcm'])).toEqual({ file: 'f.json', trials: 5000, seed: 3, mcm: false });
+    expect(parseArgs(['f.json', '--trials', '5000', '--seed', '3', '--no-mcm'])).toEqual({ file: 'f.json', trials: 5000, seed: 3, mcm: false, threads: 1 });
+    expect(parseArgs(['f.json', '--threads', '4'])).toMatchObject({ threads: 4 });
+    expect(() => parseArgs(['f.json', '--threads', '0'])).toThrow(/--threads must lie between 1 and 256/);
     expect(() => parseArgs([])).toThrow(/no budget file given/);
     expect(() => parseArgs(['f.json', '--seed', '-1'])).toThrow(/--seed needs a whole number/);
     expect(() => parseArgs(['f.json', '--trials', '10'])).toThrow(/--trials must lie between 1000/);
