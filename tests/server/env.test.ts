@@ -18,7 +18,16 @@ describe('loadConfig', () => {
       fakeSmtpPort: 2525,
       signupEnabled: false,
       seedDemo: true,
+      monteCarloNice: 10,
     });
+  });
+
+  it('when MONTE_CARLO_NICE is set, then it is taken (0–19); under NODE_ENV=test it defaults to 0; anything else is named', () => {
+    expect(loadConfig({ MONTE_CARLO_NICE: '19' }).monteCarloNice).toBe(19);
+    expect(loadConfig({ MONTE_CARLO_NICE: '0' }).monteCarloNice).toBe(0);
+    expect(loadConfig({ NODE_ENV: 'test' }).monteCarloNice).toBe(0);
+    expect(() => loadConfig({ MONTE_CARLO_NICE: '20' })).toThrow(/MONTE_CARLO_NICE must be a whole number from 0 .* to 19/);
+    expect(() => loadConfig({ MONTE_CARLO_NICE: 'low' })).toThrow(/MONTE_CARLO_NICE/);
   });
 
   it('when PORT is set and no URL, then the base URL follows the port', () => {
