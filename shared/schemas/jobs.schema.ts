@@ -98,8 +98,24 @@ export const jobSchema = z.object({
 });
 export type JobDto = z.infer<typeof jobSchema>;
 
-/** The job on its own page (GET /api/jobs/:id): the record and the amendment it belongs to, if any. */
-export const jobViewSchema = jobSchema.extend({ amends: jobAmendsSchema.nullable() });
+/**
+ * What a job says about an amendment of the certificate issued from it (ISO/IEC 17025:2017
+ * §7.8.8): the amendment's fields as in {@link jobAmendsSchema} (`certificateNumber` is this job's
+ * certificate), and the job opened to prepare it, with that job's own status.
+ */
+export const jobAmendedBySchema = jobAmendsSchema.extend({
+  jobId: z.string(),
+  jobNumber: z.string(),
+  jobStatus: z.enum(JOB_STATUSES),
+});
+export type JobAmendedBy = z.infer<typeof jobAmendedBySchema>;
+
+/**
+ * The job on its own page (GET /api/jobs/:id): the record, the amendment it was opened for, if
+ * any, and the amendment of its own certificate, if any (at most one: only a current certificate
+ * can be amended, one amendment at a time, and the issued amendment supersedes it).
+ */
+export const jobViewSchema = jobSchema.extend({ amends: jobAmendsSchema.nullable(), amendedBy: jobAmendedBySchema.nullable() });
 export type JobView = z.infer<typeof jobViewSchema>;
 
 /** One row of the jobs list (GET /api/jobs): some of the record, with names and counts. */

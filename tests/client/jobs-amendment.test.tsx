@@ -1,9 +1,10 @@
 /**
  * What the analyst sees of an amendment (ISO/IEC 17025:2017 §7.8.8): the draft revision says, on
  * its page and in the jobs list, which certificate it amends and why, and that the approved result
- * replaces that certificate. An ordinary job says nothing of the kind.
+ * replaces that certificate; the job whose certificate is amended names the draft, with a link and
+ * its status. An ordinary job says nothing of the kind.
  */
-import { screen, within } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { json, meFor, mockFetch, renderApp } from './render-app';
 
@@ -18,7 +19,7 @@ const listRow = (over: Record<string, unknown>) => ({
 const job = (over: Record<string, unknown>) => ({
   id: 'j1', number: 'EMB-2026-0012', status: 'draft', customerId: 'c1', customer: 'Brightwater Glassworks Ltd (demo)', itemId: 'i1', itemLabel: 'Handheld infrared thermometer, s/n HT-0042',
   templateVersionId: 't1', receivedOn: null, calibratedOn: null, location: '', environment: {}, reviewComment: null, rejectedAt: null, submittedAt: null,
-  analystId: 'u1', analyst: 'Ada Demo', createdAt: '2026-11-25T09:00:00.000Z', updatedAt: '2026-11-25T09:00:00.000Z', amends: null, ...over,
+  analystId: 'u1', analyst: 'Ada Demo', createdAt: '2026-11-25T09:00:00.000Z', updatedAt: '2026-11-25T09:00:00.000Z', amends: null, amendedBy: null, ...over,
 });
 
 const detail = (jobOver: Record<string, unknown>) => ({
@@ -29,12 +30,16 @@ const detail = (jobOver: Record<string, unknown>) => ({
   standards: [],
 });
 
-function mockJob(jobOver: Record<string, unknown>) {
+function mockJob(jobOver: Record<string, unknown>, others: Record<string, Record<string, unknown>> = {}) {
   mockFetch({
     'GET /api/me': () => json(200, meFor('analyst')),
     'GET /api/jobs/j1': () => json(200, detail(jobOver)),
     'GET /api/jobs/j1/checks': () => json(200, { reasons: [], notes: [], cmc: {} }),
     'GET /api/jobs/reference-standards': () => json(200, { standards: [] }),
+    ...Object.fromEntries(Object.entries(others).flatMap(([id, over]) => [
+      [`GET /api/jobs/${id}`, () => json(200, detail({ id, ...over }))],
+      [`GET /api/jobs/${id}/checks`, () => json(200, { reasons: [], notes: [], cmc: {} })],
+    ])),
   });
 }
 
@@ -64,6 +69,54 @@ describe('job page of an amendment', () => {
     renderApp('/app/jobs/j1');
     await screen.findByRole('heading', { level: 1, name: /EMB-2026-0012/ });
     expect(screen.queryByText(/Amendment of certificate/)).toBeNull();
+  });
+});
+
+describe('job page of the job whose certificate is amended', () => {
+  const amendedBy = { ...amends, jobId: 'j2', jobNumber: 'EMB-2026-0015', jobStatus: 'draft' as const };
+
+  it('when an amendment is being prepared, then a notice names the draft with a link and its status, the reason, and that the certificate stays current until approval', async () => {
+    mockJob({ status: 'issued', amendedBy }, { j2: { number: 'EMB-2026-0015', amends } });
+    renderApp('/app/jobs/j1');
+    await screen.findByRole('heading', { level: 1, name: /EMB-2026-0012/ });
+    const notice = screen.getByText('Certificate EMB-C-2026-0007 is being amended').parentElement!;
+    expect(notice.textContent).toContain('The amendment is prepared in job EMB-2026-0015 Draft.');
+    expect(notice.textContent).toContain(`Reason: ${reason.replace(/\.$/, '')}.`);
+    expect(notice.textContent).toContain('EMB-C-2026-0007, issued from this job, stays current until an authorised signatory approves the amendment; it is then marked superseded by the new certificate.');
+    const points = screen.getByRole('heading', { name: 'Calibration points' });
+    expect(notice.compareDocumentPosition(points) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+
+    // The link opens the draft, which says what it amends.
+    const link = within(notice).getByRole('link', { name: 'EMB-2026-0015' });
+    expect(link.getAttribute('href')).toBe('/app/jobs/j2');
+    fireEvent.click(link);
+    await screen.findByRole('heading', { level: 1, name: /EMB-2026-0015/ });
+    expect(screen.getByText('Amendment of certificate EMB-C-2026-0007')).toBeTruthy();
+    expect(screen.queryByText(/is being amended/)).toBeNull();
+  });
+
+  it('when the draft has been submitted, then the notice gives that status', async () => {
+    mockJob({ status: 'issued', amendedBy: { ...amendedBy, jobStatus: 'submitted' } });
+    renderApp('/app/jobs/j1');
+    const label = await screen.findByText('Certificate EMB-C-2026-0007 is being amended');
+    expect(within(label.parentElement!).getByText('Submitted for review')).toBeTruthy();
+  });
+
+  it('when the amendment has been issued, then the notice names the job and the certificate that replaced this one', async () => {
+    mockJob({ status: 'issued', amendedBy: { ...amendedBy, status: 'issued', jobStatus: 'issued', newCertificateNumber: 'EMB-C-2026-0009' } });
+    renderApp('/app/jobs/j1');
+    const label = await screen.findByText('Certificate EMB-C-2026-0007 was amended');
+    const notice = label.parentElement!;
+    expect(notice.textContent).toContain('Amended by job EMB-2026-0015 Certificate issued.');
+    expect(notice.textContent).toContain('Certificate EMB-C-2026-0009, issued from that job, replaced EMB-C-2026-0007, which is now marked superseded.');
+    expect(within(notice).getByRole('link', { name: 'EMB-2026-0015' }).getAttribute('href')).toBe('/app/jobs/j2');
+  });
+
+  it('when the job\'s certificate is not amended, then no such notice is shown', async () => {
+    mockJob({ status: 'issued' });
+    renderApp('/app/jobs/j1');
+    await screen.findByRole('heading', { level: 1, name: /EMB-2026-0012/ });
+    expect(screen.queryByText(/is being amended|was amended/)).toBeNull();
   });
 });
 

@@ -5,8 +5,9 @@
  * the keyboard alone), runs Monte Carlo (JCGM 101) and submits; the signatory sends it back once,
  * the analyst corrects and resubmits, the signatory approves with the password (ISO/IEC 17025:2017
  * §7.8); the contact's mailbox holds the signed PDF, the customer downloads the same bytes from the
- * portal, the public verification page confirms them; an amendment (ISO/IEC 17025:2017 §7.8.8)
- * supersedes the certificate in the portal and on the verification page.
+ * portal, the public verification page confirms them; an amendment (ISO/IEC 17025:2017 §7.8.8),
+ * named on the original job's page while it is prepared and after, supersedes the certificate in
+ * the portal and on the verification page.
  * Screenshots: test-results/screenshots/flow-*.png.
  */
 import { createHash } from 'node:crypto';
@@ -328,7 +329,14 @@ describe('the whole job, end to end, as each of its users', () => {
     const revisionRow = page.locator('tr', { has: page.getByRole('link', { name: revision }) });
     await revisionRow.getByText(`Amends ${number}`).waitFor();
     await shot('analyst-jobs-amendment');
-    await page.getByRole('link', { name: revision }).first().click();
+    // The original job's page names the draft that amends its certificate, with its status, and links to it.
+    await page.goto(jobUrl);
+    await page.getByRole('heading', { name: jobNumber }).waitFor();
+    const amendedBy = page.locator('div', { has: page.getByText(`Certificate ${number} is being amended`, { exact: true }) }).last();
+    await amendedBy.waitFor();
+    await expect.poll(() => amendedBy.textContent()).toContain(`The amendment is prepared in job ${revision} Draft. Reason: The item’s serial number was printed without its suffix; corrected.`);
+    await shot('analyst-original-being-amended');
+    await amendedBy.getByRole('link', { name: revision }).click();
     await page.getByRole('heading', { name: revision }).waitFor();
     await page.getByText(`Amendment of certificate ${number}`).waitFor();
     await page.getByText(/Reason: The item’s serial number was printed without its suffix; corrected\./).waitFor();
@@ -348,6 +356,12 @@ describe('the whole job, end to end, as each of its users', () => {
     await issued.waitFor({ timeout: 120_000 });
     const newNumber = /EMB-C-\d{4}-\d{4}/.exec((await issued.textContent()) ?? '')![0];
     expect(newNumber).not.toBe(number);
+    // The original job now says its certificate was replaced, and by which.
+    await page.goto(jobUrl);
+    await page.getByRole('heading', { name: jobNumber }).waitFor();
+    const amended = page.locator('div', { has: page.getByText(`Certificate ${number} was amended`, { exact: true }) }).last();
+    await amended.getByText(`Certificate ${newNumber}, issued from that job, replaced ${number}, which is now marked superseded.`).waitFor();
+    await shot('signatory-original-amended');
 
     await signIn('customer@emberline-demo.test');
     await page.goto(`${server.url}/app/my-certificates`);

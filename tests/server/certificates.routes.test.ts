@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { DEMO_PASSWORD } from '../../server/db/seed';
 import { sha256Hex } from '../../server/signing';
+import { jobViewSchema } from '../../shared/schemas/jobs.schema';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { approve, submittedJob } from './certificates-helpers';
 import { fonts, pageTexts, pdfsig, tempDir, writeTemp } from './pdf/poppler';
@@ -93,11 +94,12 @@ describe('staff access', () => {
 });
 
 describe('amendment (ISO/IEC 17025:2017 §7.8.8)', () => {
-  it('when an amendment is opened, then the new draft job names the certificate it amends and the reason', async () => {
+  it('when an amendment is opened, then the new draft job names the certificate it amends and the reason, and the original job names the draft', async () => {
     const { jobId: originalJobId } = await submittedJob(t);
     const issued = await approve(t, originalJobId);
     const reason = 'The calibration date was entered one day late.';
     const qm = await t.signIn('quality_manager');
+    expect((await qm.get(`/api/jobs/${originalJobId}`).expect(200)).body.job.amendedBy).toBeNull();
     const opened = await qm.post(`/api/certificates/${issued.id}/amend`).send({ reason }).expect(201);
     const newJobId = opened.body.jobId as string;
 
@@ -116,11 +118,23 @@ describe('amendment (ISO/IEC 17025:2017 §7.8.8)', () => {
     // Readers of the job (quality manager) see the same.
     expect((await qm.get(`/api/jobs/${newJobId}`).expect(200)).body.job.amends.certificateNumber).toBe(issued.number);
 
+    // The original job's page names the draft that amends its certificate, and the draft's status.
+    const amendedBy = async (status: 'open' | 'issued', jobStatus: string, newCertificateNumber: string | null) => {
+      const body = (await analyst.get(`/api/jobs/${originalJobId}`).expect(200)).body;
+      expect(jobViewSchema.safeParse(body.job).success).toBe(true);
+      expect(body.job.amendedBy).toEqual({ certificateNumber: issued.number, reason, status, newCertificateNumber, jobId: newJobId, jobNumber: opened.body.jobNumber, jobStatus });
+    };
+    await amendedBy('open', 'draft', null);
+    expect(page.body.job.amendedBy).toBeNull();
+
     // Once approved, the job names the certificate that replaced the amended one.
     await analyst.post(`/api/jobs/${newJobId}/submit`).expect(200);
+    await amendedBy('open', 'submitted', null);
     const next = await approve(t, newJobId);
     const after = await analyst.get(`/api/jobs/${newJobId}`).expect(200);
     expect(after.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'issued', newCertificateNumber: next.number });
+    await amendedBy('issued', 'issued', next.number);
+    expect(after.body.job.amendedBy).toBeNull();
   }, 120_000);
 
   it('when an amendment is opened, reviewed and approved, then the new certificate names the old one and why, and the old one is superseded but still verifies', async () => {

@@ -2,7 +2,7 @@ import { and, asc, count, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm
 import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db/client';
 import { calibrationPoints, certificateAmendments, certificates, customers, jobs, readings, user } from '../../db/schema';
-import type { JobAmends, JobListQuery, JobStatus } from '../../../shared/schemas/jobs.schema';
+import type { JobAmendedBy, JobAmends, JobListQuery, JobStatus } from '../../../shared/schemas/jobs.schema';
 
 export type JobRow = typeof jobs.$inferSelect;
 export type PointRow = typeof calibrationPoints.$inferSelect;
@@ -18,6 +18,8 @@ export type JobListRow = Pick<JobRow, 'id' | 'number' | 'status' | 'itemLabel' |
 /** The certificate an amendment amends, and the one its approval issued (ISO/IEC 17025:2017 §7.8.8). */
 const amendedCertificate = alias(certificates, 'amended_certificate');
 const replacingCertificate = alias(certificates, 'replacing_certificate');
+/** The job opened to prepare an amendment. */
+const amendingJob = alias(jobs, 'amending_job');
 
 /** Columns of the amendment a job was opened for; every one is null for an ordinary job. */
 const amendsColumns = {
@@ -102,6 +104,25 @@ export function createJobsRepository(db: Db) {
         .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
         .where(eq(certificateAmendments.newJobId, jobId));
       return row ? toAmends(row) : null;
+    },
+
+    /**
+     * The amendment of the certificate issued from this job, with the job opened to prepare it;
+     * null when the job's certificate has never been amended. Only a current certificate can be
+     * amended and the issued amendment supersedes it, so there is at most one; the latest is taken.
+     */
+    async amendedByOf(jobId: string, tx: Db = db): Promise<JobAmendedBy | null> {
+      const [row] = await tx
+        .select({ amends: amendsColumns, jobId: amendingJob.id, jobNumber: amendingJob.number, jobStatus: amendingJob.status })
+        .from(certificateAmendments)
+        .innerJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
+        .innerJoin(amendingJob, eq(amendingJob.id, certificateAmendments.newJobId))
+        .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
+        .where(eq(amendedCertificate.jobId, jobId))
+        .orderBy(desc(certificateAmendments.openedAt))
+        .limit(1);
+      const amends = row ? toAmends(row.amends) : null;
+      return row && amends ? { ...amends, jobId: row.jobId, jobNumber: row.jobNumber, jobStatus: row.jobStatus } : null;
     },
 
     async lockJob(tx: Db, id: string): Promise<JobRow | null> {

@@ -227,8 +227,9 @@ export function createJobsService(deps: { db: Db; jobsRepo: JobsRepository; sour
       const readings = await jobsRepo.readingsOfJob(id);
       const standards = await standardsOf(points);
       const amends = await jobsRepo.amendsOf(id);
+      const amendedBy = await jobsRepo.amendedByOf(id);
       return {
-        job: { ...toJobDto(job), amends },
+        job: { ...toJobDto(job), amends, amendedBy },
         template: { id: version.id, name: version.name, version: version.version, key: version.key, definition: version.definition },
         points: points.map(toPointDto),
         readings: readings.map((r) => ({ pointId: r.pointId, symbol: r.symbol, n: r.values.length, fileName: r.fileName, sha256: r.sha256, column: r.column, uploadedAt: r.uploadedAt.toISOString() })),

@@ -41,5 +41,6 @@ export function JobDetailPage() {
   const { user } = useMe();
   const { jobId = '' } = useParams();
   if (!user.role || !READERS.includes(user.role)) return <ForbiddenPage what="Calibration job" />;
-  return <JobPage jobId={jobId} userId={user.id} today={new Date().toISOString().slice(0, 10)} />;
+  // Keyed by the job: a link from one job to another (an amendment's) starts the page afresh.
+  return <JobPage key={jobId} jobId={jobId} userId={user.id} today={new Date().toISOString().slice(0, 10)} />;
 }

@@ -11,7 +11,7 @@ import { ErrorAcrossJobChart } from '../../budgets/components/charts';
 import { useChecks, useJob, useStandards, useSubmitJob } from '../api/jobs';
 import { useAddPoint, useRemovePoint } from '../api/points';
 import type { Reason } from '../api/types';
-import { AmendmentNotice } from './amendment';
+import { AmendedByNotice, AmendmentNotice } from './amendment';
 import { JobStatusBadge } from './job-status';
 
 /** One job: its details, points, the budget editor of the chosen point, the checks and submission. */
@@ -78,6 +78,7 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
       </header>
 
       {j.amends && <AmendmentNotice amends={j.amends} />}
+      {j.amendedBy && <AmendedByNotice amendedBy={j.amendedBy} />}
 
       {j.reviewComment && j.status === 'draft' && (
         <Notice tone="warn" label="Sent back by the reviewer">{j.reviewComment}</Notice>
