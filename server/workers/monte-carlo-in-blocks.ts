@@ -27,7 +27,7 @@ export interface ParallelEvaluator {
 }
 
 /**
- * An evaluator whose Monte Carlo runs on `threads` worker threads (default: every core). Two
+ * An evaluator whose Monte Carlo runs on `threads` worker threads (default: every core). Four
  * blocks per thread are kept in flight so that no thread waits for the next one.
  */
 export function createParallelEvaluator(threads = availableParallelism()): ParallelEvaluator {
@@ -36,7 +36,7 @@ export function createParallelEvaluator(threads = availableParallelism()): Paral
   const runBlock = poolBlockRunner(pool);
   return {
     threads: n,
-    evaluate: (input, opts = {}) => evaluateInBlocks(input, opts, runBlock, 2 * n),
+    evaluate: (input, opts = {}) => evaluateInBlocks(input, opts, runBlock, 4 * n),
     destroy: () => pool.destroy(),
   };
 }

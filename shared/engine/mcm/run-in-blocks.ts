@@ -43,8 +43,8 @@ export function computeBlock(task: BlockTask, model: CompiledModel, reuse?: { sa
  * same seed: block b's streams are the same (BlockStarts), and the values are added to the
  * statistics in trial order whatever order the blocks finish in.
  *
- * At most `inFlight` blocks are outstanding (memory: inFlight × 512 KiB of values on top of the
- * output store). Progress is reported and cancellation polled after each block. The adaptive
+ * At most `inFlight` blocks are outstanding or waiting for their turn (memory: inFlight × 512 KiB
+ * of values on top of the output store). Progress is reported and cancellation polled after each block. The adaptive
  * procedure (§7.9) decides after each batch whether to go on, so it runs here in this thread
  * with runMonteCarlo.
  */
@@ -59,27 +59,34 @@ export async function runMonteCarloInBlocks(doc: BudgetDocument, model: Compiled
   const starts = new BlockStarts(opts.seed, doc.inputs.length);
   const acc = new OutputAccumulator(M, opts.coverage);
   const pending = new Map<number, Promise<Float64Array>>();
-  let launched = 0;
-  const launch = () => {
-    const { block, states } = starts.next();
-    const first = block * BLOCK_TRIALS;
-    const p = runBlock({ doc, first, n: Math.min(BLOCK_TRIALS, M - first), states });
-    p.catch(() => {}); // awaited in order below; a later block's failure must not go unhandled meanwhile
-    pending.set(block, p);
-    launched++;
+  let launched = 0, consumed = 0, stopped = false;
+  // Keep `inFlight` blocks outstanding: a new one is started as soon as any finishes (not only
+  // when the next in trial order does), so no thread waits while an earlier block is still running.
+  const topUp = (): void => {
+    while (!stopped && launched < blocks && launched - consumed < Math.max(1, inFlight)) {
+      const { block, states } = starts.next();
+      const first = block * BLOCK_TRIALS;
+      const p = runBlock({ doc, first, n: Math.min(BLOCK_TRIALS, M - first), states });
+      p.then(topUp, () => {}); // a failure is awaited, in order, below
+      pending.set(block, p);
+      launched++;
+    }
   };
   let done = 0;
   try {
+    topUp();
     for (let b = 0; b < blocks; b++) {
       if (opts.isCancelled?.()) throw new EngineError('CANCELLED', `Monte Carlo run cancelled after ${done} trials`);
-      while (launched < blocks && launched < b + Math.max(1, inFlight)) launch();
       const out = await pending.get(b)!;
       pending.delete(b);
+      consumed++;
+      topUp();
       acc.add(out, out.length);
       done += out.length;
       opts.onProgress?.(done, M);
     }
   } finally {
+    stopped = true;
     pending.clear();
   }
   const s = acc.summary(opts.interval);

@@ -24,20 +24,23 @@ const doc = parseBudget({
 const model = compileModel(doc);
 const opts: McmOptions = { trials: 3 * BLOCK_TRIALS + 1234, seed: 20261203, adaptive: false, interval: 'shortest', coverage: 0.95, digits: 2 };
 
-/** A block runner in this thread whose blocks finish in a scrambled order. */
-function scrambled(log: BlockTask[] = []): BlockRunner {
+/** A block runner in this thread whose blocks finish in a scrambled order; `busy` tracks how many are outstanding. */
+function scrambled(log: BlockTask[] = [], busy = { now: 0, most: 0 }): BlockRunner {
   return (task) => {
     log.push(task);
+    busy.most = Math.max(busy.most, ++busy.now);
     const out = computeBlock(task, model);
-    return new Promise((resolve) => setTimeout(() => resolve(out), ((task.first / BLOCK_TRIALS) * 7) % 5));
+    return new Promise((resolve) => setTimeout(() => (busy.now--, resolve(out)), ((task.first / BLOCK_TRIALS) * 7) % 5));
   };
 }
 
 describe('runMonteCarloInBlocks', () => {
   it('gives the result of runMonteCarlo for the same seed, to the last bit, with blocks finishing out of order', async () => {
     const log: BlockTask[] = [];
-    const inBlocks = await runMonteCarloInBlocks(doc, model, opts, scrambled(log), 3);
+    const busy = { now: 0, most: 0 };
+    const inBlocks = await runMonteCarloInBlocks(doc, model, opts, scrambled(log, busy), 3);
     expect(inBlocks).toEqual(runMonteCarlo(doc, model, opts));
+    expect(busy.most).toBe(3);
     expect(log.map((t) => [t.first, t.n])).toEqual([[0, BLOCK_TRIALS], [BLOCK_TRIALS, BLOCK_TRIALS], [2 * BLOCK_TRIALS, BLOCK_TRIALS], [3 * BLOCK_TRIALS, 1234]]);
   });
 
