@@ -44,9 +44,9 @@ export function computeBlock(task: BlockTask, model: CompiledModel, reuse?: { sa
  * statistics in trial order whatever order the blocks finish in.
  *
  * At most `inFlight` blocks are outstanding or waiting for their turn (memory: inFlight × 512 KiB
- * of values on top of the output store). Progress is reported and cancellation polled after each block. The adaptive
- * procedure (§7.9) decides after each batch whether to go on, so it runs here in this thread
- * with runMonteCarlo.
+ * of values on top of the output store). Progress is reported and cancellation polled after
+ * each block. The adaptive procedure (§7.9) decides after each batch whether to go on, so it
+ * runs here in this thread with runMonteCarlo.
  */
 export async function runMonteCarloInBlocks(doc: BudgetDocument, model: CompiledModel, opts: McmOptions, runBlock: BlockRunner, inFlight: number): Promise<McmResult> {
   if (opts.adaptive) return runMonteCarlo(doc, model, opts);
