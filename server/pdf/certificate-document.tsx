@@ -14,8 +14,8 @@ import type { ReactNode } from 'react';
 import { Document, Page, StyleSheet, Text, View, type Styles } from '@react-pdf/renderer';
 import type { CertificateAnnex, CertificateData, CertificateResultPoint, ConformityResult } from '../../shared/schemas/certificate.schema';
 import { MONO, SANS } from './fonts';
-import { coverageProbability, dateRange, dateTimeUtc, dof, fixed, longDate, NBSP, num, percent, plusMinus, printReported, symbolParts, withUnit } from './format';
-import { formatCondition, formatUnit } from '../../shared/format';
+import { coverageProbability, dateRange, dateTimeUtc, dof, fixed, longDate, NBSP, num, percent, plusMinus, printReported, withUnit } from './format';
+import { formatCondition, formatUnit, subscriptUpright, symbolText } from '../../shared/format';
 import { McmHistogram } from './histogram';
 import { palette, size } from './theme';
 
@@ -69,15 +69,18 @@ const CONFORMITY_WORDS: Record<ConformityResult, string> = {
   fail: 'Does not conform',
 };
 
-/** Quantity symbol in italics with an upright subscript (ISO 80000-1 §7.1). */
 type Style = Styles[string];
 
+/**
+ * A model symbol as the screens typeset it (shared/format/symbols.ts): italic base, Greek where the
+ * identifier spells it, a descriptive subscript upright and a one-letter one italic (ISO 80000-1 §7.1).
+ */
 function Sym({ symbol, style }: { symbol: string; style?: Style }) {
-  const { base, sub } = symbolParts(symbol);
+  const { base, sub } = symbolText(symbol);
   return (
     <Text style={[{ fontFamily: SANS, fontStyle: 'italic' }, style ?? {}]}>
       {base}
-      {sub ? <Text style={{ fontStyle: 'normal', fontSize: 5.8, verticalAlign: 'sub' }}>{sub}</Text> : null}
+      {sub !== null ? <Text style={{ fontStyle: subscriptUpright(sub) ? 'normal' : 'italic', fontSize: 5.8, verticalAlign: 'sub' }}>{sub}</Text> : null}
     </Text>
   );
 }
@@ -366,7 +369,6 @@ function AnnexPoint({ point, index }: { point: CertificateResultPoint; index: nu
   if (!annex) return null;
   const unit = point.unit;
   const { gum, mcm, validation } = annex;
-  const sym = symbolParts(point.measurand.symbol).base;
   const interval = (iv: [number, number]) => `[${num(iv[0], 4)}, ${num(iv[1], 4)}] ${unit}`;
   return (
     <View style={s.annexPoint} wrap={false}>
@@ -403,7 +405,7 @@ function AnnexPoint({ point, index }: { point: CertificateResultPoint; index: nu
         </View>
         {mcm ? (
           <View style={{ width: 240 }}>
-            <McmHistogram annex={annex} symbol={sym} unit={unit} width={240} height={118} />
+            <McmHistogram annex={annex} symbol={point.measurand.symbol} unit={unit} width={240} height={118} />
             <Text style={[s.small, { fontSize: size.tiny }]}>
               Bars: Monte Carlo · curve: GUM normal · dashed: y ± U · solid: MC interval
             </Text>

@@ -1,7 +1,7 @@
 /**
- * Certificate wording of numbers, dates and symbols. Number formatting itself comes from
- * shared/format (ISO 80000-1 / SI Brochure conventions); this file composes the certificate's
- * phrases from it.
+ * Certificate wording of numbers and dates. Number formatting itself comes from shared/format
+ * (ISO 80000-1 / SI Brochure conventions); this file composes the certificate's phrases from it.
+ * Quantity symbols read as on the screens: shared/format/symbols.ts.
  */
 import { formatCoverageProbability, formatNumber, formatUnit, groupDigits, MINUS } from '../../shared/format';
 
@@ -84,28 +84,4 @@ export function dateTimeUtc(iso: string): string {
   const d = new Date(iso);
   const date = d.toISOString().slice(0, 10);
   return `${longDate(date)}, ${d.toISOString().slice(11, 16)} UTC`;
-}
-
-const GREEK: Record<string, string> = {
-  alpha: 'α', beta: 'β', gamma: 'γ', delta: 'δ', Delta: 'Δ', eps: 'ε', epsilon: 'ε', theta: 'θ',
-  lambda: 'λ', mu: 'μ', nu: 'ν', rho: 'ρ', sigma: 'σ', tau: 'τ', phi: 'φ', omega: 'ω', Omega: 'Ω',
-};
-
-/**
- * A model-language identifier split for typesetting (ISO 80000-1 §7.1: quantity symbols in
- * italics, descriptive subscripts upright). "T_ref" → { base: "T", sub: "ref" }; "lambda" → λ;
- * a leading "d" before a capital or a Greek name is read as a correction δ ("dT_res" → δT, res;
- * "deps" → δε).
- */
-export function symbolParts(symbol: string): { base: string; sub: string } {
-  const [rawBase, ...rest] = symbol.split('_');
-  const sub = rest.join(',');
-  const greek = (s: string): string | undefined => GREEK[s];
-  let base = greek(rawBase) ?? rawBase;
-  if (base === rawBase && rawBase.length > 1 && rawBase.startsWith('d')) {
-    const tail = rawBase.slice(1);
-    if (greek(tail)) base = `δ${greek(tail)}`;
-    else if (/^[A-Z][A-Za-z]?$/.test(tail)) base = `δ${tail}`;
-  }
-  return { base, sub };
 }

@@ -4,15 +4,17 @@
  * distribution), the GUM normal N(y, u²) overlaid, the GUM interval y ± U (dashed) and the
  * Monte Carlo coverage interval (solid) marked, axes labelled "quantity / unit" (ISO 80000-1 §6).
  */
-import { G, Line, Path, Rect, Svg, Text as SvgText } from '@react-pdf/renderer';
+import type { ComponentType, ReactNode } from 'react';
+import { G, Line, Path, Rect, Svg, Text as SvgText, Tspan } from '@react-pdf/renderer';
 import type { CertificateAnnex } from '../../shared/schemas/certificate.schema';
 import { SANS } from './fonts';
+import { subscriptUpright, symbolText } from '../../shared/format/symbols';
 import { axisTicks } from '../../shared/format/ticks';
 import { palette } from './theme';
 
 export interface HistogramProps {
   annex: CertificateAnnex;
-  /** Measurand symbol and unit for the axis label, "E / K". */
+  /** Measurand (model identifier, typeset as on the screens) and unit for the axis label, "E / K". */
   symbol: string;
   unit: string;
   width?: number;
@@ -86,9 +88,35 @@ export function McmHistogram({ annex, symbol, unit, width = 250, height = 150 }:
           <SvgText x={m.left - 4} y={sy(t) + 2.2} textAnchor="end" style={font} fill={palette.ink}>{yAxis.label(t)}</SvgText>
         </G>
       ))}
-      <SvgText x={m.left + pw / 2 - 1.5} y={height - 4} textAnchor="end" style={{ ...font, fontSize: 7, fontStyle: 'italic' }} fill={palette.ink}>{symbol}</SvgText>
-      <SvgText x={m.left + pw / 2 + 1.5} y={height - 4} style={{ ...font, fontSize: 7 }} fill={palette.ink}>{`/ ${unit}`}</SvgText>
+      <AxisTitle symbol={symbol} unit={unit} centre={m.left + pw / 2} y={height - 4} />
       <SvgText x={m.left - 30} y={8} style={font} fill={palette.muted}>{`probability density / ${unit}⁻¹`}</SvgText>
     </Svg>
+  );
+}
+
+/** react-pdf styles a span as it does its <Text> (style → props), though its types give only x and y. */
+const Span = Tspan as unknown as ComponentType<{ x?: number; y?: number; style?: { fontSize?: number; fontStyle?: 'normal' | 'italic' }; children: ReactNode }>;
+
+/**
+ * "E / K" below the x axis, the symbol typeset as in the certificate's tables (italic base, lowered
+ * subscript), as one run of spans so the gaps are the font's own. react-pdf anchors each span on
+ * its own and measures nothing for us, so the run starts half an estimated width (0.55 em a
+ * character) left of the centre. react-pdf ends a span that has no x of its own with a space (and
+ * drops a leading one): the base takes an explicit x when a subscript follows it, so that only
+ * the subscript's space separates the symbol from "/".
+ */
+function AxisTitle({ symbol, unit, centre, y }: { symbol: string; unit: string; centre: number; y: number }) {
+  const { base, sub } = symbolText(symbol);
+  const size = 7;
+  const subSize = 5;
+  const after = `/ ${unit}`;
+  const width = 0.55 * (size * (base.length + 1 + after.length) + subSize * (sub?.length ?? 0));
+  const x = centre - width / 2;
+  return (
+    <SvgText x={x} y={y} style={{ fontFamily: SANS, fontSize: size }} fill={palette.ink}>
+      <Span x={sub !== null ? x : undefined} style={{ fontStyle: 'italic' }}>{base}</Span>
+      {sub !== null ? <Span y={y + 1.8} style={{ fontSize: subSize, fontStyle: subscriptUpright(sub) ? 'normal' : 'italic' }}>{sub}</Span> : null}
+      <Span y={y} style={{ fontStyle: 'normal' }}>{after}</Span>
+    </SvgText>
   );
 }

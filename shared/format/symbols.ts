@@ -3,7 +3,8 @@
  * ASCII name spells one (lambda → λ, eps → ε, sigma → σ, nu → ν …), the part after "_" as the
  * subscript (T_ref → T with subscript "ref"), trailing digits as a subscript (x1 → x with
  * subscript "1"), and a leading d before a capital read as δ (dT_res → δT_res), as ISO 80000-1 §7.1 and GUM usage
- * write them. The client typesets these parts (src/features/templates/components/symbol-tex.ts);
+ * write them. The client typesets these parts (src/features/templates/components/symbol-tex.ts), and
+ * so does the certificate PDF (server/pdf: {@link symbolText} and {@link subscriptUpright});
  * messages from the server use {@link symbolPlain}. The model identifier itself stays the key.
  */
 
@@ -14,9 +15,14 @@ const GREEK: Record<string, string> = {
   xi: 'xi', rho: 'rho', sigma: 'sigma', tau: 'tau', phi: 'varphi', chi: 'chi', psi: 'psi', omega: 'omega',
   Gamma: 'Gamma', Delta: 'Delta', Theta: 'Theta', Lambda: 'Lambda', Sigma: 'Sigma', Phi: 'Phi', Omega: 'Omega',
 };
+/**
+ * The letters themselves. A quantity symbol takes the Greek letter, U+03BC GREEK SMALL LETTER MU
+ * for "mu"; U+00B5 MICRO SIGN is the prefix micro and belongs to units only (shared/format/units.ts;
+ * SI Brochure, 9th ed. (2019) §3).
+ */
 const GREEK_TEXT: Record<string, string> = {
   alpha: 'α', beta: 'β', gamma: 'γ', delta: 'δ', varepsilon: 'ε', zeta: 'ζ', eta: 'η', theta: 'θ', kappa: 'κ',
-  lambda: 'λ', mu: 'µ', nu: 'ν', xi: 'ξ', rho: 'ρ', sigma: 'σ', tau: 'τ', varphi: 'φ', chi: 'χ', psi: 'ψ', omega: 'ω',
+  lambda: 'λ', mu: 'μ', nu: 'ν', xi: 'ξ', rho: 'ρ', sigma: 'σ', tau: 'τ', varphi: 'φ', chi: 'χ', psi: 'ψ', omega: 'ω',
   Gamma: 'Γ', Delta: 'Δ', Theta: 'Θ', Lambda: 'Λ', Sigma: 'Σ', Phi: 'Φ', Omega: 'Ω',
 };
 

@@ -6,6 +6,7 @@
 import { statSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { symbolText } from '../../../shared/format';
 import { certificateSchema } from '../../../shared/schemas/certificate.schema';
 import { renderCertificatePdf } from '../../../server/pdf/render-certificate';
 import { ensureSigningIdentity, sha256Hex, signPdf, verifyPdfAuthenticity, type SigningIdentity } from '../../../server/signing';
@@ -140,6 +141,28 @@ describe('certificate PDF content (ISO/IEC 17025:2017 7.8.2.1 and 7.8.4.1)', () 
     for (const s of ['λ', '±', '°C', 'k =', 'ν', 'δ', 'ε', 'µm', '≈', '× 10⁻⁴', 'K⁻¹', '−1.00 ']) expect(all).toContain(s);
     expect(all).not.toContain('\uFFFD');
   });
+
+  it('annex: names each input as the review screen does (shared/format/symbols.ts, ISO 80000-1 §7.1)', () => {
+    const annexText = pages.slice(1).join('\n');
+    for (const row of demoCertificate.results[0].annex!.gum.budget) {
+      const { base, sub } = symbolText(row.symbol);
+      // pdftotext gives the lowered subscript back right after its base: "δTres", "Tref".
+      expect(annexText, row.symbol).toMatch(new RegExp(`^${base}${sub ?? ''}\\s`, 'm'));
+    }
+    // A leading d is δ before a capital only, on screen and here: dT_res → δT_res, deps stays deps.
+    expect(annexText).toMatch(/^δTres\s/m);
+    expect(annexText).toMatch(/^deps\s/m);
+    expect(annexText).not.toContain('δε');
+  });
+
+  it('writes a quantity mu with the Greek letter and the prefix micro with the micro sign (SI Brochure §3)', async () => {
+    const results = demoCertificateInput.results.map((r) => ({ ...r, measurand: { ...r.measurand, symbol: 'mu_a' } }));
+    const path = writeTemp(dir, 'mu.pdf', await renderCertificatePdf(certificateSchema.parse({ ...demoCertificateInput, results })));
+    const text = pageTexts(path).join('\n');
+    expect(text).toContain('\u03BCa = 0.28 ± 0.22 K');
+    expect(text).toContain('8 \u00B5m to 14 \u00B5m');
+    expect(text).not.toContain('\u00B5a');
+  }, 120_000);
 
   it('embeds every font (pdffonts: emb = yes), Noto Sans among them', () => {
     const rows = fonts(unsignedPath);

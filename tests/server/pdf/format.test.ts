@@ -1,6 +1,6 @@
 /** Certificate wording helpers (server/pdf/format.ts). */
 import { describe, expect, it } from 'vitest';
-import { dateRange, dof, longDate, plusMinus, printReported, symbolParts } from '../../../server/pdf/format';
+import { dateRange, dof, longDate, plusMinus, printReported } from '../../../server/pdf/format';
 
 describe('certificate formatting', () => {
   it('prints reported strings with U+2212 and digit groups from five digits (SI Brochure §5.4.4)', () => {
@@ -27,13 +27,5 @@ describe('certificate formatting', () => {
     expect(dof(20.9999999999)).toBe('21');
     expect(dof('infinite')).toBe('∞');
     expect(dof(null)).toBe('n/a');
-  });
-
-  it('typesets model symbols: Greek names, δ corrections, upright subscripts (ISO 80000-1 §7.1)', () => {
-    expect(symbolParts('T_ref')).toEqual({ base: 'T', sub: 'ref' });
-    expect(symbolParts('dT_res')).toEqual({ base: 'δT', sub: 'res' });
-    expect(symbolParts('deps')).toEqual({ base: 'δε', sub: '' });
-    expect(symbolParts('lambda_eff')).toEqual({ base: 'λ', sub: 'eff' });
-    expect(symbolParts('dose')).toEqual({ base: 'dose', sub: '' });
   });
 });
