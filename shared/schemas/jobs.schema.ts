@@ -61,16 +61,25 @@ export const jobListQuerySchema = z.object({
 export type JobListQuery = z.infer<typeof jobListQuerySchema>;
 
 /**
- * What a job says about the amendment it was opened for (ISO/IEC 17025:2017 §7.8.8): the issued
- * certificate it amends, the reason given, and whether the amendment is still being prepared
- * (`open`) or its new certificate has been issued and replaced the old one (`issued`).
+ * An amendment (ISO/IEC 17025:2017 §7.8.8) as both of its jobs tell it: the issued certificate
+ * amended, the reason given, and whether the amendment is still being prepared (`open`) or its
+ * new certificate has been issued and replaced the old one (`issued`).
  */
-export const jobAmendsSchema = z.object({
+const amendmentSchema = z.object({
   certificateNumber: z.string(),
   reason: z.string(),
   status: z.enum(['open', 'issued']),
-  /** The certificate issued from this job, which replaced the amended one; null while open. */
+  /** The certificate issued from the amending job, which replaced the amended one; null while open. */
   newCertificateNumber: z.string().nullable(),
+});
+
+/**
+ * What a job says about the amendment it was opened for: the amendment (`certificateNumber` is
+ * the certificate it amends), and the job that certificate was issued from, which this job revises.
+ */
+export const jobAmendsSchema = amendmentSchema.extend({
+  jobId: z.string(),
+  jobNumber: z.string(),
 });
 export type JobAmends = z.infer<typeof jobAmendsSchema>;
 
@@ -100,10 +109,10 @@ export type JobDto = z.infer<typeof jobSchema>;
 
 /**
  * What a job says about an amendment of the certificate issued from it (ISO/IEC 17025:2017
- * §7.8.8): the amendment's fields as in {@link jobAmendsSchema} (`certificateNumber` is this job's
- * certificate), and the job opened to prepare it, with that job's own status.
+ * §7.8.8): the amendment (`certificateNumber` is this job's certificate), and the job opened to
+ * prepare it, with that job's own status.
  */
-export const jobAmendedBySchema = jobAmendsSchema.extend({
+export const jobAmendedBySchema = amendmentSchema.extend({
   jobId: z.string(),
   jobNumber: z.string(),
   jobStatus: z.enum(JOB_STATUSES),
@@ -118,10 +127,13 @@ export type JobAmendedBy = z.infer<typeof jobAmendedBySchema>;
 export const jobViewSchema = jobSchema.extend({ amends: jobAmendsSchema.nullable(), amendedBy: jobAmendedBySchema.nullable() });
 export type JobView = z.infer<typeof jobViewSchema>;
 
-/** One row of the jobs list (GET /api/jobs): some of the record, with names and counts. */
+/**
+ * One row of the jobs list (GET /api/jobs): some of the record, with names and counts, and either
+ * side of an amendment as on the job's page.
+ */
 export const jobListRowSchema = jobSchema
   .pick({ id: true, number: true, status: true, itemLabel: true, calibratedOn: true, receivedOn: true, updatedAt: true, customerId: true, templateVersionId: true })
-  .extend({ customer: z.string(), analyst: z.string(), points: z.number(), amends: jobAmendsSchema.nullable() });
+  .extend({ customer: z.string(), analyst: z.string(), points: z.number(), amends: jobAmendsSchema.nullable(), amendedBy: jobAmendedBySchema.nullable() });
 export type JobListRow = z.infer<typeof jobListRowSchema>;
 export const jobListSchema = z.object({ jobs: z.array(jobListRowSchema), total: z.number(), page: z.number(), pageSize: z.number() });
 

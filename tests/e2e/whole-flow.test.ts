@@ -328,6 +328,8 @@ describe('the whole job, end to end, as each of its users', () => {
     // The jobs list and the job page say which certificate the draft amends and why (§7.8.8).
     const revisionRow = page.locator('tr', { has: page.getByRole('link', { name: revision }) });
     await revisionRow.getByText(`Amends ${number}`).waitFor();
+    // …and the original job's row names the draft that amends its certificate.
+    await page.locator('tr', { has: page.getByRole('link', { name: jobNumber, exact: true }) }).getByText(`Being amended in ${revision}`).waitFor();
     await shot('analyst-jobs-amendment');
     // The original job's page names the draft that amends its certificate, with its status, and links to it.
     await page.goto(jobUrl);
@@ -340,6 +342,8 @@ describe('the whole job, end to end, as each of its users', () => {
     await page.getByRole('heading', { name: revision }).waitFor();
     await page.getByText(`Amendment of certificate ${number}`).waitFor();
     await page.getByText(/Reason: The item’s serial number was printed without its suffix; corrected\./).waitFor();
+    // The draft's notice links back to the job the amended certificate was issued from.
+    expect(await page.getByRole('link', { name: jobNumber, exact: true }).getAttribute('href')).toBe(new URL(jobUrl).pathname);
     await expect.poll(() => page.getByText('✓ Every check passes.').count(), { timeout: 30_000 }).toBe(1);
     await shot('analyst-revision');
     await page.getByRole('button', { name: 'Submit for review' }).click();

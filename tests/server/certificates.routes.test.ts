@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { DEMO_PASSWORD } from '../../server/db/seed';
 import { sha256Hex } from '../../server/signing';
-import { jobViewSchema } from '../../shared/schemas/jobs.schema';
+import { jobListSchema, jobViewSchema } from '../../shared/schemas/jobs.schema';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { approve, submittedJob } from './certificates-helpers';
 import { fonts, pageTexts, pdfsig, tempDir, writeTemp } from './pdf/poppler';
@@ -94,26 +94,37 @@ describe('staff access', () => {
 });
 
 describe('amendment (ISO/IEC 17025:2017 §7.8.8)', () => {
-  it('when an amendment is opened, then the new draft job names the certificate it amends and the reason, and the original job names the draft', async () => {
+  it('when an amendment is opened, then the new draft job names the certificate it amends, the job it came from and the reason, and the original job names the draft', async () => {
     const { jobId: originalJobId } = await submittedJob(t);
     const issued = await approve(t, originalJobId);
     const reason = 'The calibration date was entered one day late.';
     const qm = await t.signIn('quality_manager');
-    expect((await qm.get(`/api/jobs/${originalJobId}`).expect(200)).body.job.amendedBy).toBeNull();
+    const before = (await qm.get(`/api/jobs/${originalJobId}`).expect(200)).body.job;
+    expect(before.amendedBy).toBeNull();
+    const originalJob = { jobId: originalJobId, jobNumber: before.number as string };
     const opened = await qm.post(`/api/certificates/${issued.id}/amend`).send({ reason }).expect(201);
     const newJobId = opened.body.jobId as string;
 
-    // The analyst's job page and jobs list say which certificate the draft amends, and why.
+    // The analyst's job page and jobs list say which certificate the draft amends, the job it was
+    // issued from (for a link back), and why.
     const analyst = await t.signIn('analyst');
     const page = await analyst.get(`/api/jobs/${newJobId}`).expect(200);
     expect(page.body.job.status).toBe('draft');
-    expect(page.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null });
+    expect(page.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null, ...originalJob });
+    expect(jobViewSchema.safeParse(page.body.job).success).toBe(true);
     const list = await analyst.get('/api/jobs').query({ q: issued.number }).expect(200);
     expect(list.body.jobs.map((j: { id: string }) => j.id)).toEqual([newJobId]);
-    expect(list.body.jobs[0].amends).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null });
-    const all = await analyst.get('/api/jobs').query({ pageSize: 100 }).expect(200);
-    const original = all.body.jobs.find((j: { id: string }) => j.id === originalJobId);
+    expect(list.body.jobs[0].amends).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null, ...originalJob });
+    expect(list.body.jobs[0].amendedBy).toBeNull();
+    // In the list, the original job names the draft that amends its certificate, as its page does.
+    const listed = async () => {
+      const all = await analyst.get('/api/jobs').query({ pageSize: 100 }).expect(200);
+      expect(jobListSchema.safeParse(all.body).success).toBe(true);
+      return all.body.jobs.find((j: { id: string }) => j.id === originalJobId);
+    };
+    const original = await listed();
     expect(original.amends).toBeNull();
+    expect(original.amendedBy).toEqual({ certificateNumber: issued.number, reason, status: 'open', newCertificateNumber: null, jobId: newJobId, jobNumber: opened.body.jobNumber, jobStatus: 'draft' });
     expect((await analyst.get(`/api/jobs/${originalJobId}`).expect(200)).body.job.amends).toBeNull();
     // Readers of the job (quality manager) see the same.
     expect((await qm.get(`/api/jobs/${newJobId}`).expect(200)).body.job.amends.certificateNumber).toBe(issued.number);
@@ -132,9 +143,10 @@ describe('amendment (ISO/IEC 17025:2017 §7.8.8)', () => {
     await amendedBy('open', 'submitted', null);
     const next = await approve(t, newJobId);
     const after = await analyst.get(`/api/jobs/${newJobId}`).expect(200);
-    expect(after.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'issued', newCertificateNumber: next.number });
+    expect(after.body.job.amends).toEqual({ certificateNumber: issued.number, reason, status: 'issued', newCertificateNumber: next.number, ...originalJob });
     await amendedBy('issued', 'issued', next.number);
     expect(after.body.job.amendedBy).toBeNull();
+    expect((await listed()).amendedBy).toEqual({ certificateNumber: issued.number, reason, status: 'issued', newCertificateNumber: next.number, jobId: newJobId, jobNumber: opened.body.jobNumber, jobStatus: 'issued' });
   }, 120_000);
 
   it('when an amendment is opened, reviewed and approved, then the new certificate names the old one and why, and the old one is superseded but still verifies', async () => {

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, ilike, inArray, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db/client';
 import { calibrationPoints, certificateAmendments, certificates, customers, jobs, readings, user } from '../../db/schema';
@@ -13,27 +13,38 @@ export type JobListRow = Pick<JobRow, 'id' | 'number' | 'status' | 'itemLabel' |
   analyst: string;
   points: number;
   amends: JobAmends | null;
+  amendedBy: JobAmendedBy | null;
 };
 
 /** The certificate an amendment amends, and the one its approval issued (ISO/IEC 17025:2017 §7.8.8). */
 const amendedCertificate = alias(certificates, 'amended_certificate');
 const replacingCertificate = alias(certificates, 'replacing_certificate');
-/** The job opened to prepare an amendment. */
+/** The job opened to prepare an amendment, and the job the amended certificate was issued from. */
 const amendingJob = alias(jobs, 'amending_job');
+const amendedJob = alias(jobs, 'amended_job');
 
-/** Columns of the amendment a job was opened for; every one is null for an ordinary job. */
-const amendsColumns = {
+/** Columns of an amendment; every one is null for a job without one (left joins). */
+const amendmentColumns = {
   certificateNumber: amendedCertificate.number,
   reason: certificateAmendments.reason,
   status: certificateAmendments.status,
   newCertificateNumber: replacingCertificate.number,
 };
-type AmendsColumns = { certificateNumber: string | null; reason: string | null; status: 'open' | 'issued' | null; newCertificateNumber: string | null };
+/** …of the amendment a job was opened for, with the job whose certificate it amends. */
+const amendsColumns = { ...amendmentColumns, jobId: amendedJob.id, jobNumber: amendedJob.number };
+type AmendmentColumns = { certificateNumber: string | null; reason: string | null; status: 'open' | 'issued' | null; newCertificateNumber: string | null };
+type AmendsColumns = AmendmentColumns & { jobId: string | null; jobNumber: string | null };
 
-function toAmends(a: AmendsColumns | null): JobAmends | null {
+function toAmendment(a: AmendmentColumns | null) {
   // Drizzle may give a nested selection over left-joined tables as null when every column is null.
   if (!a || a.certificateNumber === null || a.reason === null || a.status === null) return null;
   return { certificateNumber: a.certificateNumber, reason: a.reason, status: a.status, newCertificateNumber: a.status === 'issued' ? a.newCertificateNumber : null };
+}
+
+/** An amended certificate always comes from a job here: POST /api/certificates/:id/amend refuses any other. */
+function toAmends(a: AmendsColumns | null): JobAmends | null {
+  const amendment = toAmendment(a);
+  return amendment && a?.jobId && a.jobNumber ? { ...amendment, jobId: a.jobId, jobNumber: a.jobNumber } : null;
 }
 
 /** Drizzle queries of jobs, their points and readings. No HTTP, no rules. */
@@ -67,6 +78,7 @@ export function createJobsRepository(db: Db) {
         .innerJoin(user, eq(user.id, jobs.analystId))
         .leftJoin(certificateAmendments, eq(certificateAmendments.newJobId, jobs.id))
         .leftJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
+        .leftJoin(amendedJob, eq(amendedJob.id, amendedCertificate.jobId))
         .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
         .where(cond)
         .orderBy(desc(jobs.updatedAt), desc(jobs.number))
@@ -79,7 +91,11 @@ export function createJobsRepository(db: Db) {
         .leftJoin(certificateAmendments, eq(certificateAmendments.newJobId, jobs.id))
         .leftJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
         .where(cond);
-      return { rows: rows.map((r) => ({ ...r, points: Number(r.points), amends: toAmends(r.amends) })), total: Number(total) };
+      const amendedBy = await this.amendedByOfJobs(rows.map((r) => r.id));
+      return {
+        rows: rows.map((r) => ({ ...r, points: Number(r.points), amends: toAmends(r.amends), amendedBy: amendedBy.get(r.id) ?? null })),
+        total: Number(total),
+      };
     },
 
     async get(id: string, tx: Db = db): Promise<(JobRow & { customer: string; analyst: string }) | null> {
@@ -94,13 +110,15 @@ export function createJobsRepository(db: Db) {
 
     /**
      * The amendment a job was opened for (at most one: `new_job_id` is unique), with the number
-     * of the certificate it amends and, once approved, of the certificate that replaced it.
+     * of the certificate it amends and the job it was issued from and, once approved, the number
+     * of the certificate that replaced it.
      */
     async amendsOf(jobId: string, tx: Db = db): Promise<JobAmends | null> {
       const [row] = await tx
         .select(amendsColumns)
         .from(certificateAmendments)
         .innerJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
+        .leftJoin(amendedJob, eq(amendedJob.id, amendedCertificate.jobId))
         .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
         .where(eq(certificateAmendments.newJobId, jobId));
       return row ? toAmends(row) : null;
@@ -112,17 +130,26 @@ export function createJobsRepository(db: Db) {
      * amended and the issued amendment supersedes it, so there is at most one; the latest is taken.
      */
     async amendedByOf(jobId: string, tx: Db = db): Promise<JobAmendedBy | null> {
-      const [row] = await tx
-        .select({ amends: amendsColumns, jobId: amendingJob.id, jobNumber: amendingJob.number, jobStatus: amendingJob.status })
+      return (await this.amendedByOfJobs([jobId], tx)).get(jobId) ?? null;
+    },
+
+    /** {@link amendedByOf} for several jobs at once (a page of the jobs list), by job id. */
+    async amendedByOfJobs(jobIds: string[], tx: Db = db): Promise<Map<string, JobAmendedBy>> {
+      const found = new Map<string, JobAmendedBy>();
+      if (jobIds.length === 0) return found;
+      const rows = await tx
+        .select({ of: amendedCertificate.jobId, amendment: amendmentColumns, jobId: amendingJob.id, jobNumber: amendingJob.number, jobStatus: amendingJob.status })
         .from(certificateAmendments)
         .innerJoin(amendedCertificate, eq(amendedCertificate.id, certificateAmendments.certificateId))
         .innerJoin(amendingJob, eq(amendingJob.id, certificateAmendments.newJobId))
         .leftJoin(replacingCertificate, eq(replacingCertificate.id, certificateAmendments.newCertificateId))
-        .where(eq(amendedCertificate.jobId, jobId))
-        .orderBy(desc(certificateAmendments.openedAt))
-        .limit(1);
-      const amends = row ? toAmends(row.amends) : null;
-      return row && amends ? { ...amends, jobId: row.jobId, jobNumber: row.jobNumber, jobStatus: row.jobStatus } : null;
+        .where(inArray(amendedCertificate.jobId, jobIds))
+        .orderBy(desc(certificateAmendments.openedAt));
+      for (const row of rows) {
+        const amendment = toAmendment(row.amendment);
+        if (row.of && amendment && !found.has(row.of)) found.set(row.of, { ...amendment, jobId: row.jobId, jobNumber: row.jobNumber, jobStatus: row.jobStatus });
+      }
+      return found;
     },
 
     async lockJob(tx: Db, id: string): Promise<JobRow | null> {

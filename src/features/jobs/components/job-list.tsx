@@ -63,7 +63,7 @@ export function JobList({ canCreate }: { canCreate: boolean }) {
               <tr key={j.id} className="border-b border-line hover:bg-sunken">
                 <td className="whitespace-nowrap py-1.5 pr-3 font-mono">
                   <Link className="font-semibold text-ember-strong underline" to={`/app/jobs/${j.id}`}>{j.number}</Link>
-                  {j.amends && <AmendmentMark amends={j.amends} />}
+                  <AmendmentMark amends={j.amends} amendedBy={j.amendedBy} />
                 </td>
                 <td className="py-1.5 pr-3">{j.customer}</td>
                 <td className="py-1.5 pr-3">{j.itemLabel}</td>
