@@ -337,6 +337,11 @@ describe('the whole job, end to end, as each of its users', () => {
     const amendedBy = page.locator('div', { has: page.getByText(`Certificate ${number} is being amended`, { exact: true }) }).last();
     await amendedBy.waitFor();
     await expect.poll(() => amendedBy.textContent()).toContain(`The amendment is prepared in job ${revision} Draft. Reason: The item’s serial number was printed without its suffix; corrected.`);
+    // The issued job is closed: one line says so; its budgets and results stay, its controls go.
+    await page.getByTestId('job-closed').getByText(/its points can no longer be changed/).waitFor();
+    await page.getByRole('heading', { name: 'Stored result' }).waitFor();
+    expect(await page.getByRole('heading', { name: 'Checks before review' }).count()).toBe(0);
+    expect(await page.getByRole('button', { name: /Run Monte Carlo|Save and calculate|Save budget/ }).count()).toBe(0);
     await shot('analyst-original-being-amended');
     await amendedBy.getByRole('link', { name: revision }).click();
     await page.getByRole('heading', { name: revision }).waitFor();

@@ -41,14 +41,20 @@ function SymList({ names }: { names: string[] }) {
   );
 }
 
-
-export function BudgetEditor({ point, definition, standards, reasons, today, editable, onSaved }: {
+/**
+ * `editable`: the signed-in analyst may change this point now (fields and buttons enabled).
+ * `closed`: the job can never be changed again (approved or issued): the editing buttons, the
+ * readings and standard pickers, the correlation controls and the Monte Carlo panel are left
+ * out, and the point reads as a record (values, budget, stored result, charts).
+ */
+export function BudgetEditor({ point, definition, standards, reasons, today, editable, closed = false, onSaved }: {
   point: Point;
   definition: TemplateDefinition;
   standards: Standard[];
   reasons: Reason[];
   today: string;
   editable: boolean;
+  closed?: boolean;
   onSaved: () => Promise<unknown>;
 }) {
   const [inputs, setInputs] = useState<PointInput[]>(point.inputs);
@@ -118,11 +124,15 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
       <section aria-labelledby="inputs-heading" className="overflow-x-auto rounded-card border border-line bg-surface p-4">
         <div className="mb-2 flex flex-wrap items-center gap-3">
           <h3 id="inputs-heading" className="mr-auto text-base font-semibold">Input quantities</h3>
-          {dirty && <span className="text-xs font-semibold text-warn">Unsaved changes</span>}
-          <Button variant="secondary" disabled={!editable || busy || !dirty} onClick={() => void act(save, 'Budget saved.')}>Save budget</Button>
-          <Button disabled={!editable || busy || !live.result} onClick={() => void act(async () => { await save(); await calculatePoint(point.id); }, 'Saved and calculated (GUM). Run Monte Carlo to validate it.')}>Save and calculate</Button>
+          {!closed && (
+            <>
+              {dirty && <span className="text-xs font-semibold text-warn">Unsaved changes</span>}
+              <Button variant="secondary" disabled={!editable || busy || !dirty} onClick={() => void act(save, 'Budget saved.')}>Save budget</Button>
+              <Button disabled={!editable || busy || !live.result} onClick={() => void act(async () => { await save(); await calculatePoint(point.id); }, 'Saved and calculated (GUM). Run Monte Carlo to validate it.')}>Save and calculate</Button>
+            </>
+          )}
         </div>
-        <p className="mb-2 text-xs text-ink-muted">Tab moves along a row, Enter to the same field of the next row. Values are shown in the unit chosen at the left of each row and kept in SI.</p>
+        <p className="mb-2 text-xs text-ink-muted">{closed ? '' : 'Tab moves along a row, Enter to the same field of the next row. '}Values are shown in the unit chosen at the left of each row and kept in SI.</p>
         <table className="w-full border-collapse text-sm">
           <thead>
             <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
@@ -147,6 +157,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
                 today={today}
                 reasons={reasonsFor(input.symbol)}
                 disabled={!editable}
+                closed={closed}
               />
             ))}
           </tbody>
@@ -170,12 +181,12 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
             onPick={(standardId, valueIndex) => act(async () => { await save(); await fromStandard(point.id, panel.symbol, { standardId, valueIndex }); setPanel(null); }, <><Sym name={panel.symbol} /> taken from the standard’s certificate (<i>u</i> = <i>U</i>/<i>k</i>).</>)}
           />
         )}
-        <CorrelationEditor inputs={inputs} correlations={correlations} disabled={!editable} onChange={(c) => { setCorrelations(c); setDirty(true); }} />
+        <CorrelationEditor inputs={inputs} correlations={correlations} disabled={!editable} closed={closed} onChange={(c) => { setCorrelations(c); setDirty(true); }} />
         {status && <Notice className="mt-3" tone={status.tone} label={status.tone === 'ok' ? 'Saved' : status.tone === 'danger' ? 'Not saved' : 'Note'} role="status">{status.text}</Notice>}
       </section>
 
       <section aria-labelledby="budget-heading" className="overflow-x-auto rounded-card border border-line bg-surface p-4">
-        <h3 id="budget-heading" className="mb-2 text-base font-semibold">Budget (GUM, computed as you type)</h3>
+        <h3 id="budget-heading" className="mb-2 text-base font-semibold">{closed ? 'Budget (GUM)' : 'Budget (GUM, computed as you type)'}</h3>
         <p className="mb-2 text-xs text-ink-muted">Estimates, u(x<sub>i</sub>) and c<sub>i</sub> in the unit chosen for each input above; the calculation itself is in SI.</p>
         {live.result ? <BudgetTable result={live.result} inputs={inputs} shownUnits={units} /> : <p className="text-sm text-ink-muted">{live.error}</p>}
         {live.result?.warnings.map((w) => (
@@ -186,7 +197,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
         ))}
       </section>
 
-      <MonteCarloPanel pointId={point.id} defaultTrials={definition.monteCarlo?.trials ?? 1_000_000} disabled={!editable || busy || !live.result} beforeRun={save} onDone={() => void onSaved()} />
+      {!closed && <MonteCarloPanel pointId={point.id} defaultTrials={definition.monteCarlo?.trials ?? 1_000_000} disabled={!editable || busy || !live.result} beforeRun={save} onDone={() => void onSaved()} />}
 
       {stored && (
         <section aria-labelledby="stored-heading" className="rounded-card border border-line bg-surface p-4">
@@ -319,7 +330,7 @@ function StandardPicker({ symbol, standards, today, onClose, onPick }: { symbol:
   );
 }
 
-function CorrelationEditor({ inputs, correlations, onChange, disabled }: { inputs: PointInput[]; correlations: Correlation[]; onChange: (c: Correlation[]) => void; disabled?: boolean }) {
+function CorrelationEditor({ inputs, correlations, onChange, disabled, closed }: { inputs: PointInput[]; correlations: Correlation[]; onChange: (c: Correlation[]) => void; disabled?: boolean; closed: boolean }) {
   const normals = inputs.filter((i) => i.distribution?.type === 'normal').map((i) => i.symbol);
   const [a, setA] = useState('');
   const [b, setB] = useState('');
@@ -332,11 +343,11 @@ function CorrelationEditor({ inputs, correlations, onChange, disabled }: { input
           <li key={c.between.join('-')} className="flex items-center gap-2 text-sm">
             <span className="whitespace-nowrap"><i>r</i>(<Sym name={c.between[0]} />, <Sym name={c.between[1]} />)</span>
             <input aria-label={`r between ${c.between[0]} and ${c.between[1]}`} type="number" step="0.01" min={-1} max={1} disabled={disabled} className="w-20 rounded-field border border-line-strong px-1 font-mono" value={c.r} onChange={(e) => onChange(correlations.map((x, j) => (j === idx ? { ...x, r: Math.max(-1, Math.min(1, Number(e.target.value))) } : x)))} />
-            <Button variant="quiet" className="px-2 py-0.5" disabled={disabled} onClick={() => onChange(correlations.filter((_, j) => j !== idx))}>Remove</Button>
+            {!closed && <Button variant="quiet" className="px-2 py-0.5" disabled={disabled} onClick={() => onChange(correlations.filter((_, j) => j !== idx))}>Remove</Button>}
           </li>
         ))}
       </ul>
-      {normals.length >= 2 && (
+      {!closed && normals.length >= 2 && (
         <div className="mt-1 flex items-center gap-2 text-sm">
           <select aria-label="first input" value={a} onChange={(e) => setA(e.target.value)} className="rounded-field border border-line-strong px-1">
             <option value="">—</option>

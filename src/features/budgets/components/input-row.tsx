@@ -65,6 +65,8 @@ export function InputRow(props: {
   today: string;
   reasons: string[];
   disabled?: boolean;
+  /** The job is closed: the readings and standard pickers are left out, not only disabled. */
+  closed?: boolean;
 }) {
   const { input, row, shownUnit, onChange, disabled } = props;
   const d = input.distribution;
@@ -145,12 +147,12 @@ export function InputRow(props: {
               </label>
             ))}
           {readingsSummary && <span className="font-mono text-xs tabular-nums" data-testid={`typea-${input.symbol}`}>{readingsSummary}</span>}
-          {(input.source === 'readings' || d?.type === 'readings') && (
+          {!props.closed && (input.source === 'readings' || d?.type === 'readings') && (
             <button type="button" className="text-xs font-semibold text-ember-strong underline" onClick={props.onReadings} disabled={disabled}>
               {d ? 'Change readings' : 'Enter or upload readings'}
             </button>
           )}
-          {input.source === 'reference' && (
+          {!props.closed && input.source === 'reference' && (
             <button type="button" className="text-xs font-semibold text-ember-strong underline" onClick={props.onStandard} disabled={disabled}>
               {props.standard ? 'Other standard' : 'Take from a reference standard'}
             </button>

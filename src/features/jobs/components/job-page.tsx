@@ -12,9 +12,13 @@ import { useChecks, useJob, useStandards, useSubmitJob } from '../api/jobs';
 import { useAddPoint, useRemovePoint } from '../api/points';
 import type { Reason } from '../api/types';
 import { AmendedByNotice, AmendmentNotice } from './amendment';
-import { JobStatusBadge } from './job-status';
+import { isClosed, JobStatusBadge } from './job-status';
 
-/** One job: its details, points, the budget editor of the chosen point, the checks and submission. */
+/**
+ * One job: its details, points, the budget editor of the chosen point, the checks and submission.
+ * A closed job (approved or issued) says so in one line instead of the checks, and shows its
+ * points, budgets and results without the controls that could never be used again.
+ */
 export function JobPage({ jobId, userId, today }: { jobId: string; userId: string; today: string }) {
   const job = useJob(jobId);
   const checks = useChecks(jobId);
@@ -34,8 +38,10 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
   }
   const { job: j, template, points } = job.data;
   const editable = j.status === 'draft' && j.analystId === userId;
+  const closed = isClosed(j.status);
   const selected = points.find((p) => p.id === params.get('point')) ?? points[0];
-  const reasons = refused ?? checks.data?.reasons ?? [];
+  // What a check would refuse today (a standard since overdue…) says nothing about a closed job.
+  const reasons = closed ? [] : (refused ?? checks.data?.reasons ?? []);
   const refetchAll = () => Promise.all([job.refetch(), checks.refetch()]);
   const def = template.definition;
   const basis = def.cmc?.basis ? def.inputs.find((i) => i.symbol === def.cmc!.basis) : undefined;
@@ -77,6 +83,11 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
         </dl>
       </header>
 
+      {closed && (
+        <p className="rounded-card border border-line bg-sunken px-4 py-2 text-sm" data-testid="job-closed">
+          <span className="font-semibold">Closed:</span> {j.status === 'issued' ? 'the certificate has been issued from this job' : 'this job has been approved'}, and its points can no longer be changed. A new certificate can only come from an amendment, which opens a new draft copy of the job.
+        </p>
+      )}
       {j.amends && <AmendmentNotice amends={j.amends} />}
       {j.amendedBy && <AmendedByNotice amendedBy={j.amendedBy} />}
 
@@ -108,7 +119,7 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
                   <button type="button" role="tab" aria-selected={p.id === selected?.id} className={`rounded-l-field border px-3 py-1.5 text-sm ${p.id === selected?.id ? 'border-ember-strong bg-ember-soft font-semibold' : 'border-line-strong bg-surface'}`} onClick={() => setParams({ point: p.id })}>
                     Point {p.position}: <span className="font-mono">{formatNumber(p.nominalValue)} {formatUnit(p.nominalUnit)}</span>
                     {p.reported && <span className="ml-2 font-mono text-xs">{p.result!.reported.value} ± {p.result!.reported.U} {formatUnit(p.result!.unit)}</span>}
-                    <span className={`ml-2 text-xs ${n ? 'text-danger' : 'text-ok'}`}>{n ? `${n} to fix` : '✓ ready'}</span>
+                    {!closed && <span className={`ml-2 text-xs ${n ? 'text-danger' : 'text-ok'}`}>{n ? `${n} to fix` : '✓ ready'}</span>}
                   </button>
                   {editable && (
                     <button type="button" aria-label={`Remove point ${p.position}`} className="rounded-r-field border border-l-0 border-line-strong px-2 py-1.5 text-sm hover:bg-sunken" onClick={() => { if (window.confirm(`Remove point ${p.position} with its readings and result?`)) void remove.mutateAsync(p.id); }}>✕</button>
@@ -129,11 +140,11 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
       </section>
 
       {selected && (
-        <PointScope key={`scope-${selected.id}`} pointId={selected.id} outsideScope={selected.outsideScope} reason={selected.outsideScopeReason} editable={editable} onSaved={refetchAll} />
+        <PointScope key={`scope-${selected.id}`} pointId={selected.id} outsideScope={selected.outsideScope} reason={selected.outsideScopeReason} editable={editable} closed={closed} onSaved={refetchAll} />
       )}
 
       {selected && (
-        <BudgetEditor key={selected.id} point={selected} definition={def} standards={standards.data?.standards ?? job.data.standards} reasons={reasons} today={today} editable={editable} onSaved={refetchAll} />
+        <BudgetEditor key={selected.id} point={selected} definition={def} standards={standards.data?.standards ?? job.data.standards} reasons={reasons} today={today} editable={editable} closed={closed} onSaved={refetchAll} />
       )}
 
       {points.filter((p) => p.reported).length >= 2 && (
@@ -143,30 +154,32 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
         </section>
       )}
 
-      <section aria-labelledby="submit-heading" className="rounded-card border border-line bg-surface p-4">
-        <h2 id="submit-heading" className="text-lg font-semibold">Checks before review</h2>
-        {reasons.length === 0 ? (
-          <p className="mt-1 text-sm text-ok">✓ Every check passes.</p>
-        ) : (
-          <ul className="mt-1 flex flex-col gap-1 text-sm" aria-label="What to fix before submitting">
-            {reasons.map((r) => (
-              <li key={`${r.pointId}-${r.symbol}-${r.code}`} className="text-danger">✕ {r.message}</li>
-            ))}
-          </ul>
-        )}
-        {checks.data?.notes.map((n) => (
-          <p key={`${n.pointId}-${n.code}-${n.message}`} className="mt-1 text-sm text-warn">⚠ {n.message}</p>
-        ))}
-        {editable && (
-          <Button className="mt-3" onClick={() => void doSubmit()} disabled={submit.isPending}>Submit for review</Button>
-        )}
-        {message && <Notice className="mt-3" tone={message.tone} label={message.tone === 'ok' ? 'Submitted' : 'Not submitted'} role="status">{message.text}</Notice>}
-      </section>
+      {!closed && (
+        <section aria-labelledby="submit-heading" className="rounded-card border border-line bg-surface p-4">
+          <h2 id="submit-heading" className="text-lg font-semibold">Checks before review</h2>
+          {reasons.length === 0 ? (
+            <p className="mt-1 text-sm text-ok">✓ Every check passes.</p>
+          ) : (
+            <ul className="mt-1 flex flex-col gap-1 text-sm" aria-label="What to fix before submitting">
+              {reasons.map((r) => (
+                <li key={`${r.pointId}-${r.symbol}-${r.code}`} className="text-danger">✕ {r.message}</li>
+              ))}
+            </ul>
+          )}
+          {checks.data?.notes.map((n) => (
+            <p key={`${n.pointId}-${n.code}-${n.message}`} className="mt-1 text-sm text-warn">⚠ {n.message}</p>
+          ))}
+          {editable && (
+            <Button className="mt-3" onClick={() => void doSubmit()} disabled={submit.isPending}>Submit for review</Button>
+          )}
+          {message && <Notice className="mt-3" tone={message.tone} label={message.tone === 'ok' ? 'Submitted' : 'Not submitted'} role="status">{message.text}</Notice>}
+        </section>
+      )}
     </div>
   );
 }
 
-function PointScope({ pointId, outsideScope, reason, editable, onSaved }: { pointId: string; outsideScope: boolean; reason: string | null; editable: boolean; onSaved: () => Promise<unknown> }) {
+function PointScope({ pointId, outsideScope, reason, editable, closed, onSaved }: { pointId: string; outsideScope: boolean; reason: string | null; editable: boolean; closed: boolean; onSaved: () => Promise<unknown> }) {
   const [on, setOn] = useState(outsideScope);
   const [text, setText] = useState(reason ?? '');
   const [error, setError] = useState<string | null>(null);
@@ -186,7 +199,7 @@ function PointScope({ pointId, outsideScope, reason, editable, onSaved }: { poin
       <div className="mt-2 flex flex-wrap items-end gap-3 text-sm">
         <label className="flex items-center gap-2"><input type="checkbox" checked={on} disabled={!editable} onChange={(e) => setOn(e.target.checked)} /> This point is outside the scope of accreditation</label>
         <label className="flex flex-1 flex-col gap-1">Reason (printed on the certificate)<input className="rounded-field border border-line-strong px-2 py-1" value={text} disabled={!editable || !on} onChange={(e) => setText(e.target.value)} /></label>
-        <Button variant="secondary" disabled={!editable} onClick={() => void save()}>Save</Button>
+        {!closed && <Button variant="secondary" disabled={!editable} onClick={() => void save()}>Save</Button>}
       </div>
       {error && <p className="mt-1 text-sm text-danger">✕ {error}</p>}
     </details>
