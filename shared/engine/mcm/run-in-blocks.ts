@@ -2,7 +2,6 @@ import { EngineError } from '../errors';
 import type { BudgetDocument, CompiledModel, McmOptions, McmResult } from '../types';
 import { OutputAccumulator } from './output-accumulator';
 import { BLOCK_TRIALS, BlockStarts, checkFinite, checkOptions, runMonteCarlo, TrialSampler } from './run-monte-carlo';
-import { createStreams } from '../random';
 
 /** One block of trials to compute: trials `first` … `first + n − 1` from the streams' `states`. */
 export interface BlockTask {
@@ -26,7 +25,7 @@ export type BlockRunner = (task: BlockTask) => Promise<Float64Array>;
 export function computeBlock(task: BlockTask, model: CompiledModel, reuse?: { sampler?: TrialSampler }): Float64Array {
   let sampler = reuse?.sampler;
   if (!sampler || sampler.columns[0]?.length !== BLOCK_TRIALS) {
-    sampler = new TrialSampler(task.doc, model, createStreams(0, task.doc.inputs.length), BLOCK_TRIALS);
+    sampler = new TrialSampler(task.doc, model, BLOCK_TRIALS);
     if (reuse) reuse.sampler = sampler;
   }
   sampler.loadStates(task.states);
@@ -52,7 +51,7 @@ export async function runMonteCarloInBlocks(doc: BudgetDocument, model: Compiled
   if (opts.adaptive) return runMonteCarlo(doc, model, opts);
   // The checks of runMonteCarlo (options, distributions, the model's inputs) before any block runs.
   checkOptions(opts);
-  new TrialSampler(doc, model, createStreams(opts.seed, doc.inputs.length), 1);
+  new TrialSampler(doc, model, 1);
 
   const M = opts.trials;
   const blocks = Math.ceil(M / BLOCK_TRIALS);

@@ -1,6 +1,6 @@
 import { correlationGroups, createCorrelatedNormalSampler, createSampler, resolveDistribution, type RandomSource } from '../distributions';
 import { EngineError } from '../errors';
-import { createStreams, type Xoshiro128StarStar } from '../random';
+import { createStreams, Xoshiro128StarStar } from '../random';
 import type { BudgetDocument, CompiledModel, McmOptions, McmResult } from '../types';
 import { numericalTolerance } from '../validation';
 import { coverageInterval } from './coverage-interval';
@@ -28,14 +28,19 @@ const part = (col: Float64Array, at: number, n: number) => (at === 0 && n === co
 
 /**
  * The samplers of one budget document and their column buffers (one per model input, in the
- * model's order), reused chunk after chunk. `streams[i]` belongs to `doc.inputs[i]`; correlated
- * normal inputs are drawn jointly from the stream of the first of their group.
+ * model's order), reused chunk after chunk. Stream i belongs to `doc.inputs[i]` and starts from
+ * the states given to loadStates (BlockStarts); correlated normal inputs are drawn jointly from
+ * the stream of the first of their group.
  */
 export class TrialSampler {
   readonly columns: Float64Array[];
+  private readonly streams: Xoshiro128StarStar[];
   private readonly steps: Step[];
 
-  constructor(doc: BudgetDocument, model: CompiledModel, readonly streams: Xoshiro128StarStar[], capacity: number) {
+  constructor(doc: BudgetDocument, model: CompiledModel, capacity: number) {
+    // Placeholder states: every block loads its own before drawing.
+    const streams = doc.inputs.map(() => new Xoshiro128StarStar([1, 0, 0, 0]));
+    this.streams = streams;
     const docIndex = new Map(doc.inputs.map((input, i) => [input.symbol, i]));
     const columnOf = new Map<number, Float64Array>();
     this.columns = model.inputSymbols.map((symbol) => {
@@ -174,9 +179,8 @@ export function runMonteCarlo(doc: BudgetDocument, model: CompiledModel, opts: M
   const ceiling = opts.trials;
   const batchSize = Math.max(Math.ceil(100 / (1 - p) - 1e-9), 10_000);
   const chunk = Math.max(1, Math.min(opts.chunkSize ?? DEFAULT_CHUNK, opts.adaptive ? batchSize : ceiling));
-  const count = doc.inputs.length;
-  const starts = new BlockStarts(opts.seed, count);
-  const sampler = new TrialSampler(doc, model, createStreams(opts.seed, count), chunk);
+  const starts = new BlockStarts(opts.seed, doc.inputs.length);
+  const sampler = new TrialSampler(doc, model, chunk);
   const { columns } = sampler;
   const out = new Float64Array(chunk);
   const acc = new OutputAccumulator(opts.adaptive ? Math.min(ceiling, 8 * batchSize) : ceiling, p);
