@@ -43,12 +43,12 @@ type RectangularByHalfWidth = { type: 'rectangular'; mean: number; halfWidth: nu
  */
 function oneParameterSet(type: string, sets: ReadonlyArray<readonly string[]>) {
   return (v: Record<string, unknown>, ctx: z.RefinementCtx) => {
-    const given = sets.map((set) => set.filter((key) => v[key] !== undefined)).filter((keys) => keys.length > 0);
-    const used = sets.filter((set) => set.some((key) => v[key] !== undefined));
+    // The parameter sets of which at least one key is given, each with the keys given.
+    const used = sets.map((set) => ({ set, given: set.filter((key) => v[key] !== undefined) })).filter((u) => u.given.length > 0);
     const describe = (set: readonly string[]) => set.join(' and ');
     const expected = sets.map(describe).join(', or ');
     if (used.length === 1) {
-      const set = used[0];
+      const { set } = used[0];
       for (const key of set) {
         if (v[key] === undefined) ctx.addIssue({ code: 'custom', message: `${type} given by ${describe(set)} also needs ${key}`, path: [key] });
       }
@@ -57,7 +57,7 @@ function oneParameterSet(type: string, sets: ReadonlyArray<readonly string[]>) {
     ctx.addIssue({
       code: 'custom',
       message: used.length === 0 ? `${type} needs ${expected}` : `${type} takes either ${expected}, not both`,
-      path: used.length === 0 ? [] : [given[1][0]],
+      path: used.length === 0 ? [] : [used[1].given[0]],
     });
   };
 }
