@@ -11,7 +11,7 @@
  * that a long run takes only the processor time the API's requests leave.
  */
 import { move } from 'piscina';
-import { compileModel, computeBlock, evaluate, EngineError, type BlockTask, type EvaluationResult } from '../../shared/engine';
+import { compileModel, computeBlock, evaluate, EngineError, McmWorkspace, type BlockTask, type EvaluationResult } from '../../shared/engine';
 import type { TrialSampler } from '../../shared/engine/mcm';
 import { taskHandler } from './task-handler';
 import { lowerThreadPriority } from './thread-priority';
@@ -30,6 +30,10 @@ export type McmTaskResult = { ok: true; result: EvaluationResult } | { ok: false
 export const MCM_SLOT = { cancel: 0, done: 1, target: 2 } as const;
 export const MCM_SHARED_BYTES = 3 * 8;
 
+// This thread's runs come one after another: they share their buffers (shared/engine/mcm/workspace.ts),
+// so a finished run leaves no 16 MiB of garbage for the process's collector threads to mark.
+const workspace = new McmWorkspace();
+
 export function runMcm(task: McmTask): McmTaskResult {
   const slots = new BigInt64Array(task.shared);
   if (task.nice) lowerThreadPriority(task.nice);
@@ -42,6 +46,7 @@ export function runMcm(task: McmTask): McmTaskResult {
         Atomics.store(slots, MCM_SLOT.done, BigInt(done));
       },
       isCancelled: () => Atomics.load(slots, MCM_SLOT.cancel) === 1n,
+      workspace,
     });
     return { ok: true, result };
   } catch (err) {

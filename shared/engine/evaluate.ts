@@ -31,6 +31,7 @@ export interface EvaluateOptions {
   seedSource?: () => number;
   onProgress?: McmOptions['onProgress'];
   isCancelled?: McmOptions['isCancelled'];
+  workspace?: McmOptions['workspace'];
   chunkSize?: number;
   /** Second-order terms of GUM 5.1.2 (default: true up to 50 uncorrelated inputs). */
   secondOrder?: boolean;
@@ -118,6 +119,7 @@ function monteCarloOptions({ doc, result }: GumStage, opts: EvaluateOptions): Mc
     chunkSize: opts.chunkSize,
     onProgress: opts.onProgress,
     isCancelled: opts.isCancelled,
+    workspace: opts.workspace,
   };
   return mcmOptions;
 }

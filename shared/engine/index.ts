@@ -32,7 +32,7 @@ export { reportResult, roundUncertainty, formatAtPlace, type ReportedStrings, ty
 
 // Distributions, Monte Carlo, validation, radiometry (shared/engine/{distributions,mcm,validation,radiometry})
 export { summarizeInput, createSampler } from './distributions';
-export { runMonteCarlo, runMonteCarloInBlocks, computeBlock, type BlockTask, type BlockRunner } from './mcm';
+export { runMonteCarlo, runMonteCarloInBlocks, computeBlock, McmWorkspace, type BlockTask, type BlockRunner } from './mcm';
 export { validateGumAgainstMcm } from './validation';
 export {
   RADIOMETRIC_FUNCTIONS,

@@ -3,6 +3,7 @@
  * Monte Carlo). The public entry is ./index.ts.
  */
 import type { BudgetDocument, Distribution } from '../schemas/budget.schema';
+import type { McmWorkspace } from './mcm/workspace';
 
 export type { BudgetDocument, Distribution };
 
@@ -53,6 +54,8 @@ export interface McmOptions {
   onProgress?: (done: number, target: number) => void;
   /** Polled between chunks; when true the run stops with EngineError('CANCELLED'). */
   isCancelled?: () => boolean;
+  /** Buffers kept between runs by a thread that computes one run after another (mcm/workspace.ts). */
+  workspace?: McmWorkspace;
 }
 
 export interface Histogram {

@@ -1,4 +1,5 @@
 import { selectInPlace } from './select-in-place';
+import { float64From, type McmWorkspace } from './workspace';
 
 /** q = pM when pM is a whole number, else ⌊pM + ½⌋ (JCGM 101:2008 §7.7.1); both are ⌊pM + ½⌋. */
 export function coverageCount(p: number, M: number): number {
@@ -19,7 +20,7 @@ const SAMPLE_SIZE = 1 << 13;
  * each copy holds at least K values, and sort only the copies. The result is the exact order
  * statistics whatever the sample: a miss is detected by the count and never returns wrong ranks.
  */
-function sampledTails(a: Float64Array, M: number, K: number): { low: Float64Array; high: Float64Array } | null {
+function sampledTails(a: Float64Array, M: number, K: number, workspace?: McmWorkspace): { low: Float64Array; high: Float64Array } | null {
   const s = SAMPLE_SIZE, stride = M / s;
   const sample = new Float64Array(s);
   for (let j = 0; j < s; j++) sample[j] = a[Math.floor(j * stride)];
@@ -32,7 +33,7 @@ function sampledTails(a: Float64Array, M: number, K: number): { low: Float64Arra
   if (!(tLo < tHi)) return null;
   // Each copy is expected to hold ≈ (jLo + 1)/s·M values; room for twice that before giving up.
   const cap = Math.min(M, Math.ceil((2 * (jLo + 1) * M) / s) + 64);
-  const low = new Float64Array(cap), high = new Float64Array(cap);
+  const low = float64From(workspace, 'low tail', cap), high = float64From(workspace, 'high tail', cap);
   let nl = 0, nh = 0;
   for (let i = 0; i < M; i++) {
     const v = a[i];
@@ -60,9 +61,10 @@ function sampledTails(a: Float64Array, M: number, K: number): { low: Float64Arra
  * the K largest (ranks q + 1 … M), each a fraction ≈ 1 − p of the values; the middle is never
  * ordered. For large M they are found by sampled thresholds and one copying pass (sampledTails),
  * leaving `a` as it was; otherwise, or when the thresholds miss, two selections reorder `a` in
- * place (its multiset of values is unchanged). When q = M the interval is [min, max].
+ * place (its multiset of values is unchanged). When q = M the interval is [min, max]. The tail
+ * copies come from `workspace` when one is given (./workspace.ts).
  */
-export function coverageInterval(a: Float64Array, M: number, p: number, kind: 'shortest' | 'symmetric'): [number, number] {
+export function coverageInterval(a: Float64Array, M: number, p: number, kind: 'shortest' | 'symmetric', workspace?: McmWorkspace): [number, number] {
   const q = coverageCount(p, M);
   const K = M - q; // number of admissible r
   if (K < 1) {
@@ -72,7 +74,7 @@ export function coverageInterval(a: Float64Array, M: number, p: number, kind: 's
   }
   // low[i] = y_(i+1) and high[i] = y_(q+i+1), i = 0 … K − 1.
   let low: Float64Array, high: Float64Array;
-  const tails = M >= SAMPLED_TAILS_MIN && 4 * K < M ? sampledTails(a, M, K) : null;
+  const tails = M >= SAMPLED_TAILS_MIN && 4 * K < M ? sampledTails(a, M, K, workspace) : null;
   if (tails) ({ low, high } = tails);
   else if (K >= q) {
     a.subarray(0, M).sort();

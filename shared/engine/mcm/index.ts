@@ -4,3 +4,4 @@ export { runMonteCarloInBlocks, computeBlock, type BlockTask, type BlockRunner }
 export { coverageInterval, coverageCount } from './coverage-interval';
 export { OutputAccumulator, EXACT_CAPACITY, FINE_BINS, PLOT_BINS, type Summary } from './output-accumulator';
 export { selectInPlace } from './select-in-place';
+export { McmWorkspace } from './workspace';

@@ -1,6 +1,7 @@
 import type { Histogram } from '../types';
 import { coverageCount, coverageInterval } from './coverage-interval';
 import { selectInPlace } from './select-in-place';
+import { float64From, type McmWorkspace } from './workspace';
 
 /** Model values kept exactly: 2^20 = 1 048 576 doubles (8 MiB), so 10^6 trials are exact. */
 export const EXACT_CAPACITY = 1 << 20;
@@ -52,9 +53,12 @@ export class OutputAccumulator {
   private below = 0;
   private above = 0;
 
-  /** @param expected the expected number of values (sizes the first buffer; it grows to the cap). */
-  constructor(expected: number, private readonly p: number) {
-    this.kept = new Float64Array(Math.max(1, Math.min(EXACT_CAPACITY, expected)));
+  /**
+   * @param expected the expected number of values (sizes the first buffer; it grows to the cap).
+   * @param workspace buffers kept between runs (./workspace.ts); without one, new ones.
+   */
+  constructor(expected: number, private readonly p: number, private readonly workspace?: McmWorkspace) {
+    this.kept = float64From(workspace, 'kept', Math.max(1, Math.min(EXACT_CAPACITY, expected)));
   }
 
   add(x: Float64Array, n: number): void {
@@ -80,7 +84,8 @@ export class OutputAccumulator {
       // Keep values up to the capacity; the chunk that crosses it is split.
       const take = Math.min(n, EXACT_CAPACITY - this.count);
       if (this.kept.length < this.count + take) {
-        const grown = new Float64Array(Math.min(EXACT_CAPACITY, Math.max(2 * this.kept.length, this.count + take)));
+        // From a workspace this may be the same memory as `kept`: set() then copies onto itself.
+        const grown = float64From(this.workspace, 'kept', Math.min(EXACT_CAPACITY, Math.max(2 * this.kept.length, this.count + take)));
         grown.set(this.kept.subarray(0, this.count));
         this.kept = grown;
       }
@@ -104,7 +109,7 @@ export class OutputAccumulator {
     if (!(W > 0)) W = Math.max(Math.abs(qLo) * 1e-6, 1e-300);
     this.lo = qLo - W / 4;
     this.width = (1.5 * W) / FINE_BINS;
-    this.bins = new Uint32Array(FINE_BINS);
+    this.bins = this.workspace ? this.workspace.uint32Zeroed('bins', FINE_BINS) : new Uint32Array(FINE_BINS);
     this.bin(kept, M);
     this.kept = null;
   }
@@ -134,7 +139,7 @@ export class OutputAccumulator {
     const u = M > 1 ? Math.sqrt(this.m2 / (M - 1)) : 0;
     if (this.kept) {
       const a = this.kept.subarray(0, M);
-      const interval = coverageInterval(a, M, this.p, kind);
+      const interval = coverageInterval(a, M, this.p, kind, this.workspace);
       return { count: M, y, u, interval, histogram: plotHistogram(interval, M, (edges, counts) => countValues(a, M, edges, counts)), resolution: 'exact' };
     }
     const interval = this.histogramInterval(kind);
@@ -146,7 +151,7 @@ export class OutputAccumulator {
     const q = coverageCount(this.p, M), K = M - q;
     if (K < 1) return [this.min, this.max];
     // cum[b] = number of values below bin b (including those below the range).
-    const cum = new Float64Array(nb + 1);
+    const cum = float64From(this.workspace, 'cumulative counts', nb + 1);
     cum[0] = this.below;
     for (let b = 0; b < nb; b++) cum[b + 1] = cum[b] + bins[b];
     const lo = this.lo, w = this.width, below = this.below, inRange = cum[nb];

@@ -5,6 +5,7 @@ import type { BudgetDocument, CompiledModel, McmOptions, McmResult } from '../ty
 import { numericalTolerance } from '../validation';
 import { coverageInterval } from './coverage-interval';
 import { OutputAccumulator } from './output-accumulator';
+import { float64From, type McmWorkspace } from './workspace';
 
 /** Default number of trials per chunk (2^16: 512 KiB per input column). */
 export const DEFAULT_CHUNK = 1 << 16;
@@ -30,23 +31,23 @@ const part = (col: Float64Array, at: number, n: number) => (at === 0 && n === co
  * The samplers of one budget document and their column buffers (one per model input, in the
  * model's order), reused chunk after chunk. Stream i belongs to `doc.inputs[i]` and starts from
  * the states given to loadStates (BlockStarts); correlated normal inputs are drawn jointly from
- * the stream of the first of their group.
+ * the stream of the first of their group. The columns come from `workspace` when one is given.
  */
 export class TrialSampler {
   readonly columns: Float64Array[];
   private readonly streams: Xoshiro128StarStar[];
   private readonly steps: Step[];
 
-  constructor(doc: BudgetDocument, model: CompiledModel, capacity: number) {
+  constructor(doc: BudgetDocument, model: CompiledModel, capacity: number, workspace?: McmWorkspace) {
     // Placeholder states: every block loads its own before drawing.
     const streams = doc.inputs.map(() => new Xoshiro128StarStar([1, 0, 0, 0]));
     this.streams = streams;
     const docIndex = new Map(doc.inputs.map((input, i) => [input.symbol, i]));
     const columnOf = new Map<number, Float64Array>();
-    this.columns = model.inputSymbols.map((symbol) => {
+    this.columns = model.inputSymbols.map((symbol, j) => {
       const i = docIndex.get(symbol);
       if (i === undefined) throw new EngineError('INVALID_DOCUMENT', `the model uses "${symbol}", which is not an input of the document`);
-      const col = new Float64Array(capacity);
+      const col = float64From(workspace, `column ${j}`, capacity);
       columnOf.set(i, col);
       return col;
     });
@@ -167,7 +168,8 @@ function sampleMeanSd(values: number[]): { mean: number; sdOfMean: number } {
  * reports an estimated target h·M_b from the current batch scatter (s ∝ 1/√h).
  *
  * `onProgress(done, target)` is called after each chunk; `isCancelled()` is polled before each
- * chunk and stops the run with EngineError('CANCELLED').
+ * chunk and stops the run with EngineError('CANCELLED'). `workspace` lends the run its buffers
+ * (./workspace.ts): the result is the same with or without it.
  *
  * @throws EngineError NON_FINITE (a model value is NaN or ±∞: the count of such trials in the
  * chunk and the inputs of the first are given), CANCELLED, INVALID_DISTRIBUTION,
@@ -180,10 +182,11 @@ export function runMonteCarlo(doc: BudgetDocument, model: CompiledModel, opts: M
   const batchSize = Math.max(Math.ceil(100 / (1 - p) - 1e-9), 10_000);
   const chunk = Math.max(1, Math.min(opts.chunkSize ?? DEFAULT_CHUNK, opts.adaptive ? batchSize : ceiling));
   const starts = new BlockStarts(opts.seed, doc.inputs.length);
-  const sampler = new TrialSampler(doc, model, chunk);
+  const ws = opts.workspace;
+  const sampler = new TrialSampler(doc, model, chunk, ws);
   const { columns } = sampler;
-  const out = new Float64Array(chunk);
-  const acc = new OutputAccumulator(opts.adaptive ? Math.min(ceiling, 8 * batchSize) : ceiling, p);
+  const out = float64From(ws, 'model values', chunk);
+  const acc = new OutputAccumulator(opts.adaptive ? Math.min(ceiling, 8 * batchSize) : ceiling, p, ws);
   let done = 0;
 
   const runChunk = (n: number): void => {
@@ -211,7 +214,7 @@ export function runMonteCarlo(doc: BudgetDocument, model: CompiledModel, opts: M
     return { trials: done, seed: opts.seed, y: s.y, u: s.u, interval: s.interval, intervalKind: opts.interval, histogram: s.histogram };
   }
 
-  const batch = new Float64Array(batchSize);
+  const batch = float64From(ws, 'batch', batchSize);
   const ys: number[] = [], us: number[] = [], lows: number[] = [], highs: number[] = [];
   let converged = false, tolerance = NaN, target = Math.min(ceiling, 2 * batchSize);
   while (done + batchSize <= ceiling || ys.length === 0) {
@@ -228,7 +231,7 @@ export function runMonteCarlo(doc: BudgetDocument, model: CompiledModel, opts: M
     const mean = sum / m;
     let ss = 0;
     for (let i = 0; i < m; i++) ss += (batch[i] - mean) ** 2;
-    const [lo, hi] = coverageInterval(batch, m, p, opts.interval);
+    const [lo, hi] = coverageInterval(batch, m, p, opts.interval, ws);
     ys.push(mean); us.push(Math.sqrt(ss / Math.max(1, m - 1))); lows.push(lo); highs.push(hi);
     const h = ys.length;
     if (h < 2) continue;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { EngineError } from '../../../../shared/engine/errors';
-import { EXACT_CAPACITY, OutputAccumulator, coverageInterval, runMonteCarlo } from '../../../../shared/engine/mcm';
+import { EXACT_CAPACITY, McmWorkspace, OutputAccumulator, coverageInterval, runMonteCarlo } from '../../../../shared/engine/mcm';
 import { createRandom } from '../../../../shared/engine/random';
 import type { BudgetDocument, CompiledModel, McmOptions } from '../../../../shared/engine/types';
 import cases from '../../../fixtures/reference/uncertainty-cases.json';
@@ -242,6 +242,38 @@ describe('bounded memory beyond 2^20 trials (OutputAccumulator)', () => {
     const chunked = new OutputAccumulator(n, 0.9545);
     for (let done = 0; done < n; done += 65536) chunked.add(all.subarray(done, Math.min(n, done + 65536)), Math.min(65536, n - done));
     expect(one.summary('symmetric').interval).toEqual(chunked.summary('symmetric').interval);
+  });
+});
+
+describe('McmWorkspace: buffers kept from run to run', () => {
+  // The result must not depend on what an earlier run left in the buffers (mcm/workspace.ts); each
+  // run below is compared with the same run on new buffers, to the last bit. Common practice, no
+  // source: a reused buffer is checked against a fresh one.
+  const rect = toDoc(byId('JCGM101-9.2.3-additive-rectangular'));
+  const normal = toDoc(byId('JCGM101-9.2.2-additive-normal'));
+
+  it('gives the same results as new buffers, run after run, as sizes and kinds change', () => {
+    const workspace = new McmWorkspace();
+    const runs: Array<[BudgetDocument, McmOptions]> = [
+      [rect, { ...base, trials: 200_000, seed: 1 }],
+      [normal, { ...base, trials: 30_000, seed: 2, interval: 'shortest' }],
+      [rect, { ...base, trials: 70_001, seed: 3, chunkSize: 4096 }],
+      [normal, { ...base, adaptive: true, trials: 200_000, digits: 2 }],
+      [rect, { ...base, trials: 200_000, seed: 1 }],
+    ];
+    for (const [doc, opts] of runs) expect(runMonteCarlo(doc, sum4, { ...opts, workspace })).toEqual(runMonteCarlo(doc, sum4, opts));
+    // The largest run sized the buffers; the last run, as large, added none.
+    const held = workspace.bytes;
+    runMonteCarlo(rect, sum4, { ...base, trials: 200_000, seed: 9, workspace });
+    expect(workspace.bytes).toBe(held);
+  });
+
+  it('clears the fine histogram between runs beyond 2^20 trials', () => {
+    const workspace = new McmWorkspace();
+    const one = handModel(['X1'], (x, t) => x[0][t]);
+    const doc = { equations: ['Y = X1'], inputs: [{ symbol: 'X1', distribution: { type: 'normal', mean: 0, sd: 1 } }] } as BudgetDocument;
+    const big = { ...base, trials: EXACT_CAPACITY + 50_000 };
+    for (const seed of [5, 6]) expect(runMonteCarlo(doc, one, { ...big, seed, workspace })).toEqual(runMonteCarlo(doc, one, { ...big, seed }));
   });
 });
 
