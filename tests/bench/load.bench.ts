@@ -7,6 +7,13 @@
  * Prints p50, p95 and p99 latency and throughput. Nothing is asserted: the goal (p95 ≤ 50 ms for
  * the recompute) is reported next to the figures. Everything listens on 127.0.0.1 only.
  *
+ * The server is the production bundle that `npm start` runs (dist/server, built here first by
+ * server/build.mjs), not the TypeScript sources under tsx: under tsx a worker thread compiles the
+ * engine when it starts, which a lab's server never does. The phase beside Monte Carlo is measured
+ * once every run stream has finished its first run, so the worker thread has started: it times
+ * the steady state, not the thread's start. On Linux each phase also prints how much of the time
+ * the API's thread was on a core and how much it waited for one (/proc/<pid>/task/<tid>/schedstat).
+ *
  *   npm run bench:load                     # both databases, 12 s per phase
  *   npm run bench:load -- --seconds 5 --only pglite
  */
@@ -91,7 +98,7 @@ async function startServer(env: Record<string, string>): Promise<Server> {
   const smtpPort = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'emberline-bench-'));
   const baseUrl = `http://127.0.0.1:${port}`;
-  const child = spawn(path.join(ROOT, 'node_modules/.bin/tsx'), ['server/index.ts'], {
+  const child = spawn(process.execPath, ['dist/server/index.js'], {
     cwd: ROOT,
     env: { ...process.env, NODE_ENV: 'production', HOST: '127.0.0.1', PORT: String(port), FAKE_SMTP_PORT: String(smtpPort), DATA_DIR: dataDir, PUBLIC_URL: baseUrl, SEED_DEMO: 'true', DATABASE_URL: '', TASK_QUEUE: '', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -200,6 +207,9 @@ function monteCarloLoop(baseUrl: string, cookie: string, pointId: string) {
     }
   })();
   return {
+    get finished() {
+      return finished;
+    },
     async stop() {
       stopped = true;
       current?.abort();
@@ -209,10 +219,28 @@ function monteCarloLoop(baseUrl: string, cookie: string, pointId: string) {
   };
 }
 
-type Figures = { label: string; p50: number; p95: number; p99: number; rps: number; total: number; errors: number; non2xx: number; acP97_5: number; mcRuns?: number };
+/** Waits until every loop has finished a run (the worker thread is up), at most `ms`. */
+async function firstRuns(loops: Array<{ finished: number }>, ms: number): Promise<void> {
+  const deadline = Date.now() + ms;
+  while (loops.some((l) => l.finished === 0) && Date.now() < deadline) await sleep(100);
+}
 
-async function gumLoad(label: string, baseUrl: string, cookie: string, body: string, seconds: number): Promise<Figures> {
+/** The API thread's time on a core and waiting for one, in ns (Linux schedstat), or null. */
+function apiThreadTimes(pid: number | undefined): { run: number; wait: number } | null {
+  try {
+    const [run, wait] = fs.readFileSync(`/proc/${pid}/task/${pid}/schedstat`, 'utf8').split(' ').map(Number);
+    return { run, wait };
+  } catch {
+    return null;
+  }
+}
+
+type Figures = { label: string; p50: number; p95: number; p99: number; rps: number; total: number; errors: number; non2xx: number; acP97_5: number; mcRuns?: number; onCore?: number; waiting?: number };
+
+async function gumLoad(label: string, baseUrl: string, cookie: string, body: string, seconds: number, serverPid?: number): Promise<Figures> {
   const latencies: number[] = [];
+  const before = apiThreadTimes(serverPid);
+  const startedAt = process.hrtime.bigint();
   const instance = autocannon({
     url: `${baseUrl}/api/calculations/gum`,
     method: 'POST',
@@ -225,6 +253,8 @@ async function gumLoad(label: string, baseUrl: string, cookie: string, body: str
     if (status === 200) latencies.push(ms);
   });
   const res = await instance;
+  const after = apiThreadTimes(serverPid);
+  const wallNs = Number(process.hrtime.bigint() - startedAt);
   latencies.sort((a, b) => a - b);
   return {
     label,
@@ -236,6 +266,7 @@ async function gumLoad(label: string, baseUrl: string, cookie: string, body: str
     errors: res.errors + res.timeouts,
     non2xx: res.non2xx,
     acP97_5: res.latency.p97_5,
+    ...(before && after ? { onCore: (after.run - before.run) / wallNs, waiting: (after.wait - before.wait) / wallNs } : {}),
   };
 }
 
@@ -251,13 +282,15 @@ async function benchBackend(name: string, env: Record<string, string>): Promise<
     // The body must be accepted before it is timed.
     await api(server.baseUrl, cookie, 'POST', '/api/calculations/gum', { budget });
     const points = await preparePoints(server.baseUrl, cookie, template, MC_STREAMS);
+    const pid = server.child.pid;
     await gumLoad('warm-up', server.baseUrl, cookie, body, 2);
-    const alone = await gumLoad(`${name}: GUM recompute alone`, server.baseUrl, cookie, body, SECONDS);
+    const alone = await gumLoad(`${name}: GUM recompute alone`, server.baseUrl, cookie, body, SECONDS, pid);
     const loops = points.map((p) => monteCarloLoop(server.baseUrl, cookie, p));
-    await sleep(500);
-    const busy = await gumLoad(`${name}: GUM recompute + ${MC_STREAMS}× 10^6-trial Monte Carlo`, server.baseUrl, cookie, body, SECONDS);
+    await firstRuns(loops, 60_000);
+    const finishedBefore = loops.reduce((s, l) => s + l.finished, 0);
+    const busy = await gumLoad(`${name}: GUM recompute + ${MC_STREAMS}× 10^6-trial Monte Carlo`, server.baseUrl, cookie, body, SECONDS, pid);
     const mc = await Promise.all(loops.map((l) => l.stop()));
-    busy.mcRuns = mc.reduce((s, m) => s + m.finished, 0);
+    busy.mcRuns = mc.reduce((s, m) => s + m.finished, 0) - finishedBefore;
     const mcFailed = mc.reduce((s, m) => s + m.failed, 0);
     if (mcFailed) console.log(`  (${name}: ${mcFailed} Monte Carlo runs did not end with "done", e.g. stopped at the end of the phase)`);
     return [alone, busy];
@@ -280,9 +313,14 @@ function print(rows: Figures[], loadBefore: number) {
     );
   }
   for (const r of rows) console.log(`  ${r.label}: p95 ${fmt(r.p95)} ms — goal p95 ≤ ${GOAL_P95_MS} ms ${r.p95 <= GOAL_P95_MS ? 'met' : 'NOT met'} (autocannon's own p97.5: ${fmt(r.acP97_5)} ms)`);
+  for (const r of rows) {
+    if (r.onCore !== undefined) console.log(`  ${r.label}: the API's thread was on a core ${fmt(100 * r.onCore)} % of the time and waited for one ${fmt(100 * (r.waiting ?? 0))} %`);
+  }
 }
 
 async function main() {
+  const built = spawnSync(process.execPath, ['server/build.mjs'], { cwd: ROOT, encoding: 'utf8' });
+  if (built.status !== 0) throw new Error(`building the server bundle failed: ${built.stderr || built.stdout}`);
   const loadBefore = os.loadavg()[0];
   const rows: Figures[] = [];
   if (ONLY !== 'postgres') rows.push(...(await benchBackend('PGlite', {})));
