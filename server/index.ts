@@ -1,6 +1,6 @@
 import path from 'node:path';
 import type { AddressInfo } from 'node:net';
-import { ConfigError, loadConfig } from './config/env';
+import { ConfigError, isLoopback, loadConfig } from './config/env';
 import { openDatabase } from './db/client';
 import { runSeed, DEMO_PASSWORD, DEMO_USERS } from './db/seed';
 import { createApp } from './app';
@@ -56,9 +56,13 @@ async function main() {
     `  mail:     ${fakeSmtp ? `local fake SMTP on 127.0.0.1:${fakeSmtp.port}, messages kept in ${path.join(config.dataDir, 'mailbox')}` : `SMTP ${config.smtp!.host}:${config.smtp!.port}`}`,
   ];
   lines.push(`  signing:  ${signing.subject} (${signing.source === 'configured' ? 'SIGNING_P12_PATH' : 'self-signed, in ' + path.join(config.dataDir, 'signing')}), certificate SHA-256 ${signing.fingerprint.slice(0, 16)}…`);
+  lines.push(`  listens:  ${config.host}:${port}${isLoopback(config.host) ? ' (this machine only; set HOST=0.0.0.0 to serve the network)' : ''}`);
   if (config.seedDemo) {
     lines.push(`  demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const u of DEMO_USERS) lines.push(`    ${ROLE_LABELS[u.role].padEnd(22)} ${u.email}`);
+    if (!isLoopback(config.host)) {
+      logger.warn(`the demo accounts, whose password is published, can be reached from other machines (HOST=${config.host}); set SEED_DEMO=false for a lab's own data`);
+    }
   }
   console.log(lines.join('\n') + '\n');
 

@@ -75,7 +75,9 @@ const envSchema = z.object({
     .optional()
     .default('development'),
   PORT: port('PORT', 3000),
-  HOST: optionalText.default('0.0.0.0'),
+  // Loopback by default: the demo accounts' password is printed at start and written in the README,
+  // so the server is reachable from other machines only when HOST says so (e.g. 0.0.0.0).
+  HOST: optionalText.default('127.0.0.1'),
   DATA_DIR: optionalText.default('./data'),
   DATABASE_URL: optionalText.refine((v) => v === undefined || /^postgres(ql)?:\/\//.test(v), {
     message: 'DATABASE_URL must start with postgres:// or postgresql://',
@@ -268,4 +270,9 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
     monteCarloNice: e.MONTE_CARLO_NICE ?? (e.NODE_ENV === 'test' ? 0 : 10),
     signing: e.SIGNING_P12_PATH ? { p12Path: path.resolve(cwd, e.SIGNING_P12_PATH), passphrase: e.SIGNING_P12_PASSPHRASE ?? '' } : undefined,
   };
+}
+
+/** True for an address that only this machine can reach: 127.0.0.0/8, ::1 or localhost (RFC 1122 §3.2.1.3, RFC 4291 §2.5.3). */
+export function isLoopback(host: string): boolean {
+  return host === 'localhost' || host === '::1' || /^127(\.\d{1,3}){3}$/.test(host);
 }

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { ConfigError, loadConfig } from '../../server/config/env';
+import { ConfigError, isLoopback, loadConfig } from '../../server/config/env';
 import { resolveAuthSecret } from '../../server/auth/secret';
 
 describe('loadConfig', () => {
@@ -11,6 +11,7 @@ describe('loadConfig', () => {
     expect(c).toMatchObject({
       nodeEnv: 'development',
       port: 3000,
+      host: '127.0.0.1',
       dataDir: '/srv/app/data',
       databaseUrl: undefined,
       baseUrl: 'http://localhost:3000',
@@ -28,6 +29,12 @@ describe('loadConfig', () => {
     expect(loadConfig({ NODE_ENV: 'test' }).monteCarloNice).toBe(0);
     expect(() => loadConfig({ MONTE_CARLO_NICE: '20' })).toThrow(/MONTE_CARLO_NICE must be a whole number from 0 .* to 19/);
     expect(() => loadConfig({ MONTE_CARLO_NICE: 'low' })).toThrow(/MONTE_CARLO_NICE/);
+  });
+
+  it('when HOST is set, then the server listens there; loopback addresses are told apart (RFC 1122 §3.2.1.3, RFC 4291 §2.5.3)', () => {
+    expect(loadConfig({ HOST: '0.0.0.0' }).host).toBe('0.0.0.0');
+    for (const h of ['127.0.0.1', '127.1.2.3', '::1', 'localhost']) expect(isLoopback(h)).toBe(true);
+    for (const h of ['0.0.0.0', '::', '10.0.0.5', '128.0.0.1', 'lab.example.org']) expect(isLoopback(h)).toBe(false);
   });
 
   it('when PORT is set and no URL, then the base URL follows the port', () => {
