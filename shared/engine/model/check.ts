@@ -9,6 +9,7 @@
 import type { EngineErrorCode } from '../errors';
 import { parse, type MathNode } from './math';
 import { tokenize, isCall, endsValue, type Token } from './tokens';
+import { quantityName } from './names';
 import { ALL_FUNCTION_NAMES, LIBRARY_CONSTANT_NAMES, RADIOMETRIC_SIGNATURES, arityOf, isAllowedFunction } from './language';
 
 /** Longest accepted equation text, in characters (the budget schema has the same bound). */
@@ -210,8 +211,8 @@ export function checkEquation(
         }
         const where = loc.name(name, false);
         if (isAllowedFunction(name)) issue('FORBIDDEN_SYNTAX', `${eqName}: the function "${name}" needs its arguments in parentheses`, where);
-        else if (name === target) issue('UNKNOWN_SYMBOL', `${eqName}: "${name}" is defined by this equation and cannot be used on its right side`, where);
-        else if (laterTargets.has(name)) issue('UNKNOWN_SYMBOL', `${eqName}: "${name}" is used before it is defined (by equation ${(laterTargets.get(name) ?? 0) + 1}); equations are evaluated in order`, where);
+        else if (name === target) issue('UNKNOWN_SYMBOL', `${eqName}: ${quantityName(name)} is defined by this equation and cannot be used on its right side`, where);
+        else if (laterTargets.has(name)) issue('UNKNOWN_SYMBOL', `${eqName}: ${quantityName(name)} is used before it is defined (by equation ${(laterTargets.get(name) ?? 0) + 1}); equations are evaluated in order`, where);
         else issue('UNKNOWN_SYMBOL', `${eqName}: unknown symbol "${name}" (not an input quantity, a constant or a quantity defined by an earlier equation)`, where);
         return;
       }
@@ -322,8 +323,8 @@ export function checkEquations(equations: readonly string[], knownSymbols: reado
     const target = r.checked?.target ?? [...targets].find(([, j]) => j === i)?.[0];
     if (!target) return;
     const where = { position: Math.max(0, text.indexOf(target)), length: target.length };
-    if (base.has(target)) errors.push({ equation: i, code: 'FORBIDDEN_SYNTAX', message: `equation ${i + 1} redefines "${target}", which is an input quantity or a constant`, ...where });
-    else if (defines.includes(target)) errors.push({ equation: i, code: 'FORBIDDEN_SYNTAX', message: `equation ${i + 1} defines "${target}" again (already defined by equation ${defines.indexOf(target) + 1})`, ...where });
+    if (base.has(target)) errors.push({ equation: i, code: 'FORBIDDEN_SYNTAX', message: `equation ${i + 1} redefines ${quantityName(target)}, which is an input quantity or a constant`, ...where });
+    else if (defines.includes(target)) errors.push({ equation: i, code: 'FORBIDDEN_SYNTAX', message: `equation ${i + 1} defines ${quantityName(target)} again (already defined by equation ${defines.indexOf(target) + 1})`, ...where });
     else {
       defines.push(target);
       known.add(target);

@@ -12,6 +12,7 @@ import { closure, isCodeGenerationRefused, type ClosureEnv, type NumberClosure }
 import { countNodes, makeInputsOf, prepareForDerivative, type Placeholder } from './expand';
 import type { RadiometricLibrary } from './library-types';
 import { derivative, type MathNode } from './math';
+import { expressionText, quantityName, quantityNames } from './names';
 
 /** Machine epsilon of IEEE 754 binary64. */
 const EPS = 2 ** -52;
@@ -80,7 +81,7 @@ export function compileModelWith(doc: BudgetDocument, library: RadiometricLibrar
   const measurand = doc.measurand?.symbol ?? checked.defines[checked.defines.length - 1];
   const defining = checked.checked.find((e) => e.target === measurand);
   if (!defining) {
-    throw new EngineError('UNDEFINED_MEASURAND', `the measurand "${measurand}" is not defined by any equation (defined: ${checked.defines.join(', ') || 'none'})`, { path: ['measurand', 'symbol'] });
+    throw new EngineError('UNDEFINED_MEASURAND', `the measurand ${quantityName(measurand)} is not defined by any equation (defined: ${quantityNames(checked.defines) || 'none'})`, { path: ['measurand', 'symbol'] });
   }
 
   // Keep only the equations the measurand depends on.
@@ -117,7 +118,7 @@ export function compileModelWith(doc: BudgetDocument, library: RadiometricLibrar
       if (Object.prototype.hasOwnProperty.call(constants, name)) return { kind: 'value', value: constants[name] };
       const v = libraryValue(name);
       if (v !== undefined) return { kind: 'value', value: v };
-      throw new EngineError('UNKNOWN_SYMBOL', `equation ${eq.index + 1}: "${name}" has no value`, { equation: eq.index });
+      throw new EngineError('UNKNOWN_SYMBOL', `equation ${eq.index + 1}: ${quantityName(name)} has no value`, { equation: eq.index });
     };
     const symbol = (name: string): string => {
       const r = resolve(name);
@@ -211,7 +212,7 @@ return { all, measurand, kernel };`;
     const k = values.findIndex((v) => !Number.isFinite(v));
     const eq = equations[k >= 0 ? k : equations.length - 1];
     const v = values[k >= 0 ? k : values.length - 1];
-    throw new EngineError('NON_FINITE', `equation ${eq.index + 1} ("${eq.text.trim()}") evaluates to ${v} (an overflow or an undefined operation such as the logarithm of a negative number) at the input values used`, { equation: eq.index, path: ['equations', eq.index] });
+    throw new EngineError('NON_FINITE', `equation ${eq.index + 1} ("${quantityName(eq.target)} = ${expressionText(eq.expr)}") evaluates to ${v} (an overflow or an undefined operation such as the logarithm of a negative number) at the input values used`, { equation: eq.index, path: ['equations', eq.index] });
   };
 
   // Symbolic derivatives of the fully substituted, expanded measurand.
@@ -328,7 +329,7 @@ return function gradient(x, out) {
     xm[i] -= h;
     const d = (built.measurand(xp) - built.measurand(xm)) / (xp[i] - xm[i]);
     if (!Number.isFinite(d)) {
-      throw new EngineError('NON_FINITE', `the sensitivity coefficient of "${inputSymbols[i]}" is not finite: the model is not finite close to the estimate`, { path: ['inputs', i] });
+      throw new EngineError('NON_FINITE', `the sensitivity coefficient of ${quantityName(inputSymbols[i])} is not finite: the model is not finite close to the estimate`, { path: ['inputs', i] });
     }
     return d;
   };

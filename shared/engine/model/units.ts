@@ -21,6 +21,7 @@ import type { BudgetDocument } from '../../schemas/budget.schema';
 import type { EngineErrorCode } from '../errors';
 import { checkEquations } from './check';
 import { unit as mathUnit, type MathNode } from './math';
+import { expressionText, quantityName } from './names';
 
 type AnyNode = MathNode & Record<string, unknown>;
 
@@ -147,7 +148,7 @@ export function checkUnits(doc: BudgetDocument): UnitCheckResult {
   const declare = (name: string, unitText: string | undefined, path: Array<string | number>, what: string) => {
     if (unitText === undefined) {
       symbols.set(name, { kind: 'unknown' });
-      warnings.push(`${what} "${name}" has no unit: terms involving it are not checked`);
+      warnings.push(`${what} ${quantityName(name)} has no unit: terms involving it are not checked`);
       return;
     }
     try {
@@ -155,7 +156,7 @@ export function checkUnits(doc: BudgetDocument): UnitCheckResult {
       shown.set(name, unitText.trim() === '' ? '1' : unitText);
     } catch (e) {
       symbols.set(name, { kind: 'unknown' });
-      errors.push({ path, code: 'UNIT_MISMATCH', message: `${what} "${name}": ${(e as Error).message}` });
+      errors.push({ path, code: 'UNIT_MISMATCH', message: `${what} ${quantityName(name)}: ${(e as Error).message}` });
     }
   };
   const constantUnits = (doc as { constantUnits?: Record<string, string> }).constantUnits ?? {};
@@ -168,7 +169,8 @@ export function checkUnits(doc: BudgetDocument): UnitCheckResult {
 
   const show = (d: Dim) => (d.kind === 'known' ? formatDimension(d.d) : d.kind === 'free' ? 'a plain number' : 'no unit');
   const term = (n: AnyNode) => {
-    const s = n.type === 'SymbolNode' && shown.has(n.name as string) ? `${n.toString()} [${shown.get(n.name as string)}]` : n.toString();
+    const text = expressionText(n);
+    const s = n.type === 'SymbolNode' && shown.has(n.name as string) ? `${text} [${shown.get(n.name as string)}]` : text;
     return s.length > 60 ? `${s.slice(0, 57)}...` : s;
   };
 
@@ -281,10 +283,10 @@ export function checkUnits(doc: BudgetDocument): UnitCheckResult {
         const dd = parseUnitDimension(declared);
         if (!same(dd, md.d)) {
           const eqIndex = checked.defines.lastIndexOf(measurand);
-          errors.push({ equation: eqIndex, path: ['measurand', 'unit'], code: 'UNIT_MISMATCH', message: `the model gives the measurand "${measurand}" in ${dimension}, but its unit "${declared}" is ${formatDimension(dd)}` });
+          errors.push({ equation: eqIndex, path: ['measurand', 'unit'], code: 'UNIT_MISMATCH', message: `the model gives the measurand ${quantityName(measurand)} in ${dimension}, but its unit "${declared}" is ${formatDimension(dd)}` });
         }
       } catch (e) {
-        errors.push({ path: ['measurand', 'unit'], code: 'UNIT_MISMATCH', message: `measurand "${measurand}": ${(e as Error).message}` });
+        errors.push({ path: ['measurand', 'unit'], code: 'UNIT_MISMATCH', message: `measurand ${quantityName(measurand)}: ${(e as Error).message}` });
       }
     }
   } else if (md && errors.length === 0) warnings.push(`the measurand's dimension could not be derived (some symbols have no unit)`);

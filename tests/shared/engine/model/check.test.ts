@@ -83,7 +83,7 @@ describe('checkEquations: refusals with message and position', () => {
   it('names a symbol used before the equation that defines it', () => {
     const r = checkEquations(['a = b + x', 'b = 2 * x'], known);
     expect(r.errors[0]).toMatchObject({ equation: 0, position: 4, code: 'UNKNOWN_SYMBOL' });
-    expect(r.errors[0].message).toMatch(/"b" is used before it is defined \(by equation 2\)/);
+    expect(r.errors[0].message).toMatch(/equation 1: b is used before it is defined \(by equation 2\)/);
   });
 
   it('points at the right side when an equation uses its own symbol', () => {
@@ -91,8 +91,20 @@ describe('checkEquations: refusals with message and position', () => {
   });
 
   it('refuses redefining an input or an earlier intermediate', () => {
-    expect(checkEquations(['x = 2 * T'], known).errors[0].message).toMatch(/redefines "x"/);
-    expect(checkEquations(['a = x', 'a = T'], known).errors[0].message).toMatch(/defines "a" again/);
+    expect(checkEquations(['x = 2 * T'], known).errors[0].message).toMatch(/redefines x, which is an input quantity/);
+    expect(checkEquations(['a = x', 'a = T'], known).errors[0].message).toMatch(/defines a again/);
+  });
+
+  it('names quantities of the model by their typeset symbol (shared/format/symbols), and quotes an unknown name as typed', () => {
+    // The plain-text reading the budget table and the certificate use: eps_bb → ε_bb,
+    // dT_res → δT_res, lambda_eff → λ_eff (ISO 80000-1 §7.1; tests/shared/format/symbols.test.ts).
+    const inputs = ['eps_bb', 'dT_drift', 'lambda_eff'];
+    expect(checkEquations(['y = eps_bb * dT_res', 'dT_res = 2 * dT_drift'], inputs).errors[0].message).toBe('equation 1: δT_res is used before it is defined (by equation 2); equations are evaluated in order');
+    expect(checkEquations(['eps_bb = 2 * dT_drift'], inputs).errors[0].message).toBe('equation 1 redefines ε_bb, which is an input quantity or a constant');
+    expect(checkEquations(['T_lambda = lambda_eff', 'T_lambda = 2'], inputs).errors[0].message).toBe('equation 2 defines T_λ again (already defined by equation 1)');
+    expect(checkEquations(['dT = dT + 1'], inputs).errors[0].message).toBe('equation 1: δT is defined by this equation and cannot be used on its right side');
+    // Not a quantity of the model: the author finds it in the equation as typed.
+    expect(checkEquations(['y = lamda_eff * eps_bb'], inputs).errors[0].message).toMatch(/unknown symbol "lamda_eff"/);
   });
 
   it('reports the equation index of a problem in a later equation', () => {

@@ -47,7 +47,12 @@ describe('compileModel', () => {
   it('uses doc.measurand when it names a quantity defined by an equation, and refuses one that is not', () => {
     const m = compileModel(doc(['a = 2 * x', 'b = a + 1'], ['x'], { measurand: { symbol: 'a' } }));
     expect(m.scalar([2])).toBe(4);
-    expect(() => compileModel(doc(['a = 2 * x'], ['x'], { measurand: { symbol: 'q' } }))).toThrow(/measurand "q" is not defined/);
+    expect(() => compileModel(doc(['a = 2 * x'], ['x'], { measurand: { symbol: 'q' } }))).toThrow(/measurand q is not defined/);
+  });
+
+  it('names quantities in its errors by their typeset symbols (shared/format/symbols: eps_bb → ε_bb, dT_res → δT_res)', () => {
+    expect(() => compileModel(doc(['eps_bb = 2 * x', 'dT_res = eps_bb + x'], ['x'], { measurand: { symbol: 'T_lambda' } }))).toThrow('the measurand T_λ is not defined by any equation (defined: ε_bb, δT_res)');
+    expect(() => compileModel(doc(['dT_res = log(eps_bb)'], ['eps_bb'])).scalar([-1])).toThrow('equation 1 ("δT_res = log(ε_bb)") evaluates to NaN');
   });
 
   it('throws EngineError for a refused equation, with its equation index and position', () => {

@@ -47,7 +47,7 @@ describe('checkUnits', () => {
     const r = checkUnits(doc(['y = T + lambda'], [['T', 'K'], ['lambda', 'm']]));
     expect(r.ok).toBe(false);
     expect(r.errors[0].equation).toBe(0);
-    expect(r.errors[0].message).toMatch(/equation 1: "\+" in "T \+ lambda" mixes different dimensions: "T \[K\]" is K but "lambda \[m\]" is m/);
+    expect(r.errors[0].message).toMatch(/equation 1: "\+" in "T \+ λ" mixes different dimensions: "T \[K\]" is K but "λ \[m\]" is m/);
   });
 
   it('refuses a non-dimensionless argument of exp and of min/max mixtures', () => {
@@ -61,13 +61,23 @@ describe('checkUnits', () => {
 
   it('refuses a derived unit that differs from the measurand unit', () => {
     const r = checkUnits(doc(['y = a * b'], [['a', 'K'], ['b', 'm']], 'K'));
-    expect(r.errors[0].message).toMatch(/gives the measurand "y" in m K, but its unit "K" is K/);
+    expect(r.errors[0].message).toMatch(/gives the measurand y in m K, but its unit "K" is K/);
   });
 
   it('warns instead of failing where a unit is missing', () => {
     const r = checkUnits(doc(['y = a + b'], [['a', 'K'], ['b', undefined]]));
     expect(r.ok).toBe(true);
-    expect(r.warnings.join(' ')).toMatch(/"b" has no unit/);
+    expect(r.warnings.join(' ')).toMatch(/input b has no unit/);
+  });
+
+  it('names inputs, terms and the measurand by their typeset symbols (shared/format/symbols: dT_drift → δT_drift, lambda_eff → λ_eff)', () => {
+    const noUnit = checkUnits(doc(['T_x = T_ind + dT_drift'], [['T_ind', 'K'], ['dT_drift', undefined]]));
+    expect(noUnit.warnings).toContain('input δT_drift has no unit: terms involving it are not checked');
+    const mixed = checkUnits(doc(['T_x = T_ind + lambda_eff'], [['T_ind', 'K'], ['lambda_eff', 'um']]));
+    expect(mixed.errors[0].message).toBe('equation 1: "+" in "T_ind + λ_eff" mixes different dimensions: "T_ind [K]" is K but "λ_eff [um]" is m');
+    const exponent = checkUnits(doc(['L_lambda = planck(lambda_eff, T_ind) * eps_bb'], [['lambda_eff', 'nm'], ['T_ind', 'K'], ['eps_bb', '1']], 'K'));
+    expect(exponent.errors[0].message).toBe('the model gives the measurand L_λ in kg m^-1 s^-3, but its unit "K" is K');
+    expect(checkUnits(doc(['y = eps_bb'], [['eps_bb', 'furlong']])).errors[0].message).toMatch(/^input ε_bb: unit "furlong" is not understood/);
   });
 
   it('uses constantUnits for constants', () => {
