@@ -9,7 +9,7 @@ import { ApiError } from '../../../lib/api-client';
 import { BudgetEditor } from '../../budgets/components/budget-editor';
 import { ErrorAcrossJobChart } from '../../budgets/components/charts';
 import { useChecks, useJob, useStandards, useSubmitJob } from '../api/jobs';
-import { useAddPoint, useRemovePoint } from '../api/points';
+import { savePoint, useAddPoint, useRemovePoint } from '../api/points';
 import type { Reason } from '../api/types';
 import { AmendedByNotice, AmendmentNotice } from './amendment';
 import { isClosed, JobStatusBadge } from './job-status';
@@ -186,7 +186,6 @@ function PointScope({ pointId, outsideScope, reason, editable, closed, onSaved }
   const save = async () => {
     setError(null);
     try {
-      const { savePoint } = await import('../api/points');
       await savePoint(pointId, { outsideScope: on, outsideScopeReason: on ? text : null });
       await onSaved();
     } catch (err) {
