@@ -11,10 +11,17 @@
  *   esbuild bundle in dist/ (node_modules stays beside the project in both cases).
  * - Each .woff is unpacked to a plain sfnt once and handed to react-pdf as a data URL: fontkit
  *   re-inflates WOFF tables on every read, which made a render take seconds (see ./woff.ts).
+ * - Every face gets a PostScript name of its own, the registered family's name without spaces
+ *   before the style ("NotoSansGreek-Italic"): @fontsource names its Latin and Greek subsets
+ *   alike ("NotoSans-Italic"). pdfkit 0.20 (which react-pdf 4 renders with) finds an embedded
+ *   font again by its PostScript name only; a second font under a name already taken is opened,
+ *   subset and embedded anew on every text run (PDFDocument.font, `_fontFamilies`), so a
+ *   certificate carried some twenty NotoSans-Italic subsets, one per Greek italic symbol.
  */
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { Font } from '@react-pdf/renderer';
+import { readPostScriptName, withPostScriptName } from './sfnt';
 import { woffToSfnt } from './woff';
 
 const require = createRequire(import.meta.url);
@@ -43,17 +50,41 @@ export const MONO = ['Noto Sans Mono', 'Noto Sans Mono Greek', 'Noto Sans', 'Not
 
 let registered = false;
 
-function sfntDataUrl(woffPath: string): string {
-  return `data:font/ttf;base64,${woffToSfnt(readFileSync(woffPath)).toString('base64')}`;
+/**
+ * The face as a plain sfnt named after its family: 'Noto Sans Greek' and "NotoSans-Italic" give
+ * "NotoSansGreek-Italic"; a name that already reads so ("NotoSans-Italic", "DejaVuSans-Bold") is
+ * left as it is.
+ */
+function faceSfnt(family: string, face: Face): { sfnt: Buffer; postscriptName: string } {
+  const sfnt = woffToSfnt(readFileSync(require.resolve(face.file)));
+  const original = readPostScriptName(sfnt);
+  if (!original) throw new Error(`${face.file} has no PostScript name`);
+  const dash = original.indexOf('-');
+  const postscriptName = `${family.replace(/ /g, '')}${dash < 0 ? '' : original.slice(dash)}`;
+  return { sfnt: postscriptName === original ? sfnt : withPostScriptName(sfnt, postscriptName), postscriptName };
+}
+
+/** Each face of each family, with a PostScript name no other face has. */
+export function certificateFontFaces(): Array<Face & { family: string; sfnt: Buffer; postscriptName: string }> {
+  const list = Object.entries(FAMILIES).flatMap(([family, faceList]) => faceList.map((face) => ({ ...face, family, ...faceSfnt(family, face) })));
+  const seen = new Set<string>();
+  for (const f of list) {
+    if (seen.has(f.postscriptName)) throw new Error(`Two certificate font faces are both named ${f.postscriptName}`);
+    seen.add(f.postscriptName);
+  }
+  return list;
 }
 
 /** Registers the families once per process (worker threads each register their own). */
 export function registerCertificateFonts(): void {
   if (registered) return;
-  for (const [family, list] of Object.entries(FAMILIES)) {
+  const all = certificateFontFaces();
+  for (const family of Object.keys(FAMILIES)) {
     Font.register({
       family,
-      fonts: list.map((f) => ({ src: sfntDataUrl(require.resolve(f.file)), fontWeight: f.fontWeight, fontStyle: f.fontStyle })),
+      fonts: all
+        .filter((f) => f.family === family)
+        .map((f) => ({ src: `data:font/ttf;base64,${f.sfnt.toString('base64')}`, fontWeight: f.fontWeight, fontStyle: f.fontStyle })),
     });
   }
   // Certificates break words only at spaces: no automatic hyphenation of names or serial numbers.

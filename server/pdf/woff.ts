@@ -7,9 +7,11 @@
  * 44-byte header, 20-byte table directory entries (tag, offset, compLength, origLength,
  * origChecksum), each table zlib-compressed when compLength < origLength. The sfnt written here
  * has the offset table and 16-byte table records of the OpenType specification, tables 4-byte
- * aligned, in the (sorted) order of the WOFF directory; checksums are the WOFF's origChecksum.
+ * aligned, in the (sorted) order of the WOFF directory; checksums are the WOFF's origChecksum
+ * (./sfnt.ts writes it).
  */
 import { inflateSync } from 'node:zlib';
+import { writeSfnt } from './sfnt';
 
 const WOFF_SIGNATURE = 0x774f4646; // 'wOFF'
 
@@ -29,26 +31,5 @@ export function woffToSfnt(woff: Buffer): Buffer {
     if (data.length !== origLength) throw new Error('WOFF table length mismatch');
     return { tag, checksum, data };
   });
-  const pad4 = (n: number) => (n + 3) & ~3;
-  const headerSize = 12 + 16 * numTables;
-  const total = tables.reduce((sum, t) => sum + pad4(t.data.length), headerSize);
-  const out = Buffer.alloc(total);
-  let pow2 = 1;
-  while (pow2 * 2 <= numTables) pow2 *= 2;
-  out.writeUInt32BE(flavor, 0);
-  out.writeUInt16BE(numTables, 4);
-  out.writeUInt16BE(pow2 * 16, 6); // searchRange
-  out.writeUInt16BE(Math.log2(pow2), 8); // entrySelector
-  out.writeUInt16BE(numTables * 16 - pow2 * 16, 10); // rangeShift
-  let offset = headerSize;
-  tables.forEach((t, i) => {
-    const rec = 12 + i * 16;
-    out.writeUInt32BE(t.tag, rec);
-    out.writeUInt32BE(t.checksum, rec + 4);
-    out.writeUInt32BE(offset, rec + 8);
-    out.writeUInt32BE(t.data.length, rec + 12);
-    t.data.copy(out, offset);
-    offset += pad4(t.data.length);
-  });
-  return out;
+  return writeSfnt(flavor, tables);
 }

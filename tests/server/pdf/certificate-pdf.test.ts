@@ -172,6 +172,15 @@ describe('certificate PDF content (ISO/IEC 17025:2017 7.8.2.1 and 7.8.4.1)', () 
     expect(rows.some((r) => r.type.includes('Type 3'))).toBe(false);
   });
 
+  it('embeds each font face once: one subset per PostScript name, the Greek faces under names of their own', () => {
+    // pdfkit finds an embedded font again by its PostScript name only; under a shared name the
+    // Greek italic was embedded anew for every run, some twenty NotoSans-Italic subsets.
+    const names = fonts(unsignedPath).map((r) => r.name.replace(/^[A-Z]{6}\+/, ''));
+    expect(names.filter((n, i) => names.indexOf(n) !== i)).toEqual([]);
+    expect(names).toContain('NotoSans-Italic');
+    expect(names).toContain('NotoSansGreek-Italic');
+  });
+
   it('7.8.8: an amendment names the certificate it replaces and why', async () => {
     const amended = certificateSchema.parse({
       ...demoCertificateInput,
