@@ -10,6 +10,8 @@ import { eq } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { customerItems, customers, readings, referenceStandards, referenceStandardValues, calibrationPoints } from '../../server/db/schema';
 import { typeA } from '../../shared/engine';
+import { jobListSchema } from '../../shared/schemas/jobs.schema';
+import { approve, submittedJob } from './certificates-helpers';
 
 const FIX = path.join(__dirname, '../fixtures/readings');
 const NOW = new Date('2026-12-01T10:00:00Z');
@@ -372,4 +374,33 @@ describe('Monte Carlo runs and calculations', () => {
     }).expect(200);
     expect((xlsx.body as Buffer).subarray(0, 2).toString()).toBe('PK');
   });
+});
+
+describe('jobs list search and amendments (ISO/IEC 17025:2017 §7.8.8)', () => {
+  it('when a job\'s certificate is amended, then searching for the amending job\'s number finds that job and the original, as the list marks it', async () => {
+    const { jobId: originalId } = await submittedJob(t);
+    const cert = await approve(t, originalId);
+    const qm = await t.signIn('quality_manager');
+    const opened = await qm.post(`/api/certificates/${cert.id}/amend`).send({ reason: 'The calibration date was entered one day late.' }).expect(201);
+    const revisionId = opened.body.jobId as string;
+    const revisionNumber = opened.body.jobNumber as string;
+
+    const ids = (res: { body: { jobs: Array<{ id: string }> } }) => res.body.jobs.map((j) => j.id).sort();
+    const found = await analyst.get('/api/jobs').query({ q: revisionNumber }).expect(200);
+    expect(jobListSchema.safeParse(found.body).success).toBe(true);
+    expect(ids(found)).toEqual([originalId, revisionId].sort());
+    expect(found.body.total).toBe(2);
+    // The original is the row marked 'Being amended in <revision>'.
+    const original = found.body.jobs.find((j: { id: string }) => j.id === originalId);
+    expect(original.amendedBy).toMatchObject({ jobId: revisionId, jobNumber: revisionNumber, jobStatus: 'draft', status: 'open' });
+    // Any case, part of the number, and together with the other filters.
+    expect(ids(await analyst.get('/api/jobs').query({ q: revisionNumber.toLowerCase() }).expect(200))).toEqual([originalId, revisionId].sort());
+    const issued = await analyst.get('/api/jobs').query({ q: revisionNumber, status: 'issued' }).expect(200);
+    expect(ids(issued)).toEqual([originalId]);
+    expect(issued.body.total).toBe(1);
+    expect(ids(await analyst.get('/api/jobs').query({ q: revisionNumber, status: 'draft' }).expect(200))).toEqual([revisionId]);
+    // A number no job has finds nothing, amended or not.
+    const none = await analyst.get('/api/jobs').query({ q: 'EMB-1999-9999' }).expect(200);
+    expect(none.body).toMatchObject({ jobs: [], total: 0 });
+  }, 120_000);
 });

@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, ilike, inArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, exists, ilike, inArray, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Db } from '../../db/client';
 import { calibrationPoints, certificateAmendments, certificates, customers, jobs, readings, user } from '../../db/schema';
@@ -22,6 +22,10 @@ const replacingCertificate = alias(certificates, 'replacing_certificate');
 /** The job opened to prepare an amendment, and the job the amended certificate was issued from. */
 const amendingJob = alias(jobs, 'amending_job');
 const amendedJob = alias(jobs, 'amended_job');
+/** The same three tables again, for the search's subquery: a job whose certificate is amended by a job whose number matches. */
+const searchedAmendment = alias(certificateAmendments, 'searched_amendment');
+const searchedCertificate = alias(certificates, 'searched_certificate');
+const searchedAmendingJob = alias(jobs, 'searched_amending_job');
 
 /** Columns of an amendment; every one is null for a job without one (left joins). */
 const amendmentColumns = {
@@ -63,7 +67,16 @@ export function createJobsRepository(db: Db) {
       if (analystId) where.push(eq(jobs.analystId, analystId));
       if (q.q && q.q.trim()) {
         const like = `%${q.q.trim().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-        where.push(or(ilike(jobs.number, like), ilike(jobs.itemLabel, like), ilike(customers.organisation, like), ilike(amendedCertificate.number, like))!);
+        // A job is found by its number, item or customer; an amendment also by the number of the
+        // certificate it amends; and a job whose certificate is amended also by the number of the
+        // job opened for the amendment, as the list names it ('Being amended in …', 'Amended by …').
+        const amendedInMatchingJob = db
+          .select({ one: sql`1` })
+          .from(searchedAmendment)
+          .innerJoin(searchedCertificate, eq(searchedCertificate.id, searchedAmendment.certificateId))
+          .innerJoin(searchedAmendingJob, eq(searchedAmendingJob.id, searchedAmendment.newJobId))
+          .where(and(eq(searchedCertificate.jobId, jobs.id), ilike(searchedAmendingJob.number, like)));
+        where.push(or(ilike(jobs.number, like), ilike(jobs.itemLabel, like), ilike(customers.organisation, like), ilike(amendedCertificate.number, like), exists(amendedInMatchingJob))!);
       }
       const cond = where.length ? and(...where) : undefined;
       const pointsCount = db.$count(calibrationPoints, eq(calibrationPoints.jobId, jobs.id));
