@@ -1,9 +1,10 @@
 /**
  * A closed job (approved or issued) can never be changed again: a new certificate comes from an
  * amendment (ISO/IEC 17025:2017 §7.8.8). Its page says so in one line instead of "Checks before
- * review", leaves out the controls nobody could use (saving, calculating, Monte Carlo, pickers,
- * correlations, scope) and keeps what is read: the inputs, the budget, the stored result and its
- * charts. A draft or submitted job keeps its checks and controls. The point and its values come
+ * review", does not ask for the checks, leaves out the controls nobody could use (saving,
+ * calculating, Monte Carlo, pickers, correlations, scope) and reads as a record: the inputs and
+ * the scope as text, not as disabled fields; the budget, the stored result and its charts as
+ * before. A draft or submitted job keeps its checks and controls. The point and its values come
  * from the shipped IR-thermometer template.
  */
 import { screen, within } from '@testing-library/react';
@@ -37,15 +38,23 @@ const job = (status: JobStatus) => ({
 const reason = { code: 'STANDARD_OVERDUE', message: 'Point 1: ε_bb comes from a standard whose calibration is overdue.', pointId: 'p1', pointPosition: 1, symbol: 'eps_bb' };
 
 function open(status: JobStatus, role: Role = 'analyst') {
-  mockFetch({
+  return openWith(status, point, role);
+}
+
+function openWith(status: JobStatus, p: Omit<typeof point, 'outsideScopeReason'> & { outsideScopeReason: string | null }, role: Role = 'analyst', standards: unknown[] = []) {
+  fetchSpy = mockFetch({
     'GET /api/me': () => json(200, meFor(role)),
-    'GET /api/jobs/j1': () => json(200, { job: job(status), template: { id: 't1', name: definition.name ?? 'IR thermometer', version: 1, key: null, definition }, points: [point], readings: [], standards: [] }),
+    'GET /api/jobs/j1': () => json(200, { job: job(status), template: { id: 't1', name: definition.name ?? 'IR thermometer', version: 1, key: null, definition }, points: [p], readings: [], standards }),
     'GET /api/jobs/j1/checks': () => json(200, { reasons: [reason], notes: [], cmc: {} }),
     'GET /api/jobs/reference-standards': () => json(200, { standards: [] }),
   });
   renderApp('/app/jobs/j1');
   return screen.findByRole('heading', { level: 1, name: /EMB-2026-0012/ });
 }
+
+let fetchSpy: ReturnType<typeof mockFetch>;
+/** Paths the page asked for, in order. */
+const asked = () => fetchSpy.mock.calls.map(([input]) => new URL(typeof input === 'string' ? input : input instanceof URL ? input.href : input.url, 'http://localhost').pathname);
 
 const button = (name: string) => screen.queryAllByRole('button', { name })[0] ?? null;
 
@@ -70,10 +79,45 @@ describe('an issued job', () => {
     expect(screen.getByRole('tab').textContent).not.toMatch(/to fix|ready/);
   });
 
-  it('keeps everything that is read: inputs, budget, stored result, charts and exports', async () => {
+  it('does not ask for its checks, nor for the register of standards', async () => {
     await open('issued');
-    expect(screen.getByRole('heading', { name: 'Input quantities' })).toBeTruthy();
-    expect((screen.getByLabelText('mean of T_ref') as HTMLInputElement).value).not.toBe('');
+    await screen.findByRole('table', { name: 'Uncertainty budget' });
+    expect(asked()).toContain('/api/jobs/j1');
+    expect(asked()).not.toContain('/api/jobs/j1/checks');
+    expect(asked()).not.toContain('/api/jobs/reference-standards');
+  });
+
+  it('shows the inputs as text, not as fields: value, unit, distribution and parameters in the unit chosen for each input', async () => {
+    await open('issued');
+    const inputs = screen.getByRole('region', { name: 'Input quantities' });
+    expect(within(inputs).queryAllByRole('textbox')).toEqual([]);
+    expect(within(inputs).queryAllByRole('combobox')).toEqual([]);
+    expect(within(inputs).queryAllByRole('button')).toEqual([]);
+    expect(inputs.querySelectorAll('input, select, textarea')).toHaveLength(0);
+    const row = (symbol: string) => inputs.querySelector(`tr[data-input="${symbol}"]`)!;
+    const cells = (symbol: string) => [...row(symbol).querySelectorAll('td')].map((td) => td.textContent);
+    // The template's values (templates/ir-thermometer-blackbody.json), kept in SI and shown in °C,
+    // µm or as a pure number; a figure and its unit joined by a no-break space.
+    const nb = '\u00a0';
+    expect(cells('T_ref').slice(1)).toEqual(['°C', 'normal', `mean = 100${nb}°C, U = 0.06${nb}°C, k = 2`]);
+    expect(cells('T_ref')[0]).toMatch(/from: reference standard certificate$/);
+    expect(cells('T_amb').slice(1)).toEqual(['°C', 'normal', `mean = 23${nb}°C, u = 1${nb}°C`]);
+    expect(cells('dT_unif').slice(1)).toEqual(['K', 'rectangular', `centre = 0${nb}K, half-width a = 0.1${nb}K`]);
+    expect(cells('eps_bb').slice(1)).toEqual(['1', 'normal', 'mean = 0.995, U = 0.004, k = 2']);
+    expect(cells('eps_set').slice(1)).toEqual(['1', 'exact (no uncertainty)', 'value = 1']);
+    expect(cells('lambda_eff').slice(1)).toEqual(['µm', 'rectangular', `centre = 10${nb}µm, half-width a = 1${nb}µm`]);
+    // Symbols of quantities in italics, words upright (ISO 80000-1 §7.1).
+    expect([...row('lambda_eff').querySelectorAll('[data-parameter] i')].map((i) => i.textContent)).toEqual(['a']);
+    expect([...row('T_ref').querySelectorAll('[data-parameter] i')].map((i) => i.textContent)).toEqual(['U', 'k']);
+    // Repeated readings as the editor summarises them (GUM 4.2): 373.35 … 373.55 K are 100.2 … 100.4 °C.
+    expect(cells('T_ind').slice(1, 3)).toEqual(['°C', 'readings (Type A)']);
+    expect(screen.getByTestId('typea-T_ind').textContent).toBe(`n = 10, mean = 100.31${nb}°C, s = 0.065828${nb}°C, s/√n = 0.020817${nb}°C, ν = 9`);
+    expect(screen.getByTestId('correlations').textContent).toBe('No correlation between the inputs.');
+    expect(screen.getByTestId('scope-record').textContent).toBe('Scope of accreditation: this point is within the scope.');
+  });
+
+  it('keeps everything that is read: budget, stored result, charts and exports', async () => {
+    await open('issued');
     expect(screen.getByRole('heading', { name: 'Budget (GUM)' })).toBeTruthy();
     const budget = await screen.findByRole('table', { name: 'Uncertainty budget' });
     expect(budget.querySelector('tr[data-symbol="eps_bb"]')).toBeTruthy();
@@ -81,6 +125,25 @@ describe('an issued job', () => {
     expect(within(stored).getByText('Contributions, largest first')).toBeTruthy();
     expect(screen.getByRole('link', { name: 'Point budget as CSV' })).toBeTruthy();
     expect(screen.getByText(/Scope of accreditation/)).toBeTruthy();
+  });
+
+  it('names the standard a value was taken from and gives a point outside the scope its reason, as text', async () => {
+    // The budget editor's note names the standard; a note that does not is preceded by the standard.
+    const taken = inputs.map((i) =>
+      i.symbol === 'eps_bb' ? { ...i, standardId: 's1', standardNote: 'Cavity blackbody RB-900, certificate DEMO-CAL-0007: effective emissivity' }
+      : i.symbol === 'T_ref' ? { ...i, standardId: 's2', standardNote: 'correction at 0 °C from its certificate' }
+      : i);
+    const standards = [
+      { id: 's1', name: 'Cavity blackbody RB-900', identifier: null, kind: 'blackbody_source', certificateNumber: 'DEMO-CAL-0007', dueDate: '2027-01-01', status: 'active', values: [] },
+      { id: 's2', name: 'Reference thermometer PRT-A', identifier: null, kind: 'reference_thermometer', certificateNumber: 'DEMO-CAL-0003', dueDate: '2027-01-01', status: 'active', values: [] },
+    ];
+    await openWith('issued', { ...point, inputs: taken, outsideScope: true, outsideScopeReason: 'Below the range of the accredited method.' }, 'analyst', standards);
+    const inputsRegion = screen.getByRole('region', { name: 'Input quantities' });
+    const note = (symbol: string) => inputsRegion.querySelector(`tr[data-input="${symbol}"] td:last-child p`)!.textContent;
+    expect(note('eps_bb')).toBe('Cavity blackbody RB-900, certificate DEMO-CAL-0007: effective emissivity');
+    expect(note('T_ref')).toBe('Reference thermometer PRT-A, certificate DEMO-CAL-0003: correction at 0 °C from its certificate');
+    expect(screen.getByTestId('scope-record').textContent).toBe('Scope of accreditation: this point is outside the scope. Reason, printed on the certificate: Below the range of the accredited method.');
+    expect(screen.queryByRole('checkbox')).toBeNull();
   });
 });
 
@@ -90,6 +153,9 @@ describe('an approved job', () => {
     expect(screen.getByTestId('job-closed').textContent).toMatch(/^Closed: this job has been approved, and its points can no longer be changed\./);
     expect(screen.queryByRole('heading', { name: 'Checks before review' })).toBeNull();
     expect(button('Run Monte Carlo')).toBeNull();
+    await screen.findByRole('table', { name: 'Uncertainty budget' });
+    expect(asked()).not.toContain('/api/jobs/j1/checks');
+    expect(screen.getByRole('region', { name: 'Input quantities' }).querySelectorAll('input, select')).toHaveLength(0);
   });
 });
 
@@ -98,11 +164,30 @@ describe('jobs that are not closed', () => {
     await open('draft');
     expect(screen.queryByTestId('job-closed')).toBeNull();
     expect(screen.getByRole('heading', { name: 'Checks before review' })).toBeTruthy();
-    expect(screen.getByRole('list', { name: 'What to fix before submitting' }).textContent).toContain('overdue');
+    // The checks are asked for once the job is known to be a draft.
+    expect((await screen.findByRole('list', { name: 'What to fix before submitting' })).textContent).toContain('overdue');
     for (const name of ['Save budget', 'Save and calculate', 'Run Monte Carlo', 'Submit for review', 'Add point', 'Save', 'Change readings', 'Take from a reference standard', 'Add correlation']) {
       expect(button(name), name).toBeTruthy();
     }
     expect(screen.getByRole('heading', { name: 'Budget (GUM, computed as you type)' })).toBeTruthy();
+    expect(asked()).toContain('/api/jobs/j1/checks');
+  });
+
+  it('the draft says nothing passes until its checks have answered', async () => {
+    let answer!: (r: Response) => void;
+    fetchSpy = mockFetch({
+      'GET /api/me': () => json(200, meFor('analyst')),
+      'GET /api/jobs/j1': () => json(200, { job: job('draft'), template: { id: 't1', name: definition.name ?? 'IR thermometer', version: 1, key: null, definition }, points: [point], readings: [], standards: [] }),
+      'GET /api/jobs/j1/checks': () => new Promise<Response>((resolve) => (answer = resolve)),
+      'GET /api/jobs/reference-standards': () => json(200, { standards: [] }),
+    });
+    renderApp('/app/jobs/j1');
+    await screen.findByText('Running the checks…');
+    expect(screen.queryByText('✓ Every check passes.')).toBeNull();
+    expect(screen.getByRole('tab').textContent).not.toMatch(/to fix|ready/);
+    answer(json(200, { reasons: [], notes: [], cmc: {} }));
+    await screen.findByText('✓ Every check passes.');
+    expect(screen.getByRole('tab').textContent).toMatch(/✓ ready$/);
   });
 
   it('a submitted job keeps its checks and shows the controls disabled, as it may yet be sent back', async () => {
@@ -112,5 +197,9 @@ describe('jobs that are not closed', () => {
     expect((button('Run Monte Carlo') as HTMLButtonElement).disabled).toBe(true);
     expect((button('Save and calculate') as HTMLButtonElement).disabled).toBe(true);
     expect(button('Submit for review')).toBeNull();
+    // Its inputs stay the editor's fields, disabled.
+    expect((screen.getByLabelText('mean of T_ref') as HTMLInputElement).disabled).toBe(true);
+    expect(screen.queryByTestId('scope-record')).toBeNull();
+    expect(asked()).toContain('/api/jobs/j1/checks');
   });
 });

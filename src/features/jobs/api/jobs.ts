@@ -28,10 +28,12 @@ export const jobQueryOptions = (id: string) => queryOptions({ queryKey: jobKeys.
 export const useJob = (id: string) => useQuery(jobQueryOptions(id));
 
 export const checksQueryOptions = (id: string) => queryOptions({ queryKey: jobKeys.checks(id), queryFn: ({ signal }) => api.get<Checks>(`/api/jobs/${id}/checks`, { signal }) });
-export const useChecks = (id: string) => useQuery(checksQueryOptions(id));
+/** `enabled`: false for a job whose checks would say nothing (a closed job), or while its status is not known. */
+export const useChecks = (id: string, enabled = true) => useQuery({ ...checksQueryOptions(id), enabled });
 
 export const standardsQueryOptions = () => queryOptions({ queryKey: jobKeys.standards(), queryFn: ({ signal }) => api.get<{ standards: Standard[] }>('/api/jobs/reference-standards', { signal }), staleTime: 60_000 });
-export const useStandards = () => useQuery(standardsQueryOptions());
+/** The whole register, for the budget editor's pickers; `enabled`: false where nothing is picked. */
+export const useStandards = (enabled = true) => useQuery({ ...standardsQueryOptions(), enabled });
 
 export function useCreateJob() {
   const qc = useQueryClient();

@@ -13,16 +13,22 @@ import { savePoint, useAddPoint, useRemovePoint } from '../api/points';
 import type { Reason } from '../api/types';
 import { AmendedByNotice, AmendmentNotice } from './amendment';
 import { isClosed, JobStatusBadge } from './job-status';
+import { PointRecord } from './point-record';
 
 /**
  * One job: its details, points, the budget editor of the chosen point, the checks and submission.
- * A closed job (approved or issued) says so in one line instead of the checks, and shows its
- * points, budgets and results without the controls that could never be used again.
+ * A closed job (approved or issued) says so in one line instead of the checks, and shows each
+ * point as a record: its inputs and scope as text, its budget, stored result and charts, and no
+ * control, since none could ever be used again. It asks for neither its checks (what a check
+ * would refuse today says nothing about it) nor the register of standards (nothing is picked).
  */
 export function JobPage({ jobId, userId, today }: { jobId: string; userId: string; today: string }) {
   const job = useJob(jobId);
-  const checks = useChecks(jobId);
-  const standards = useStandards();
+  // Known once the job has loaded: until then neither is asked for.
+  const status = job.data?.job.status;
+  const open = status !== undefined && !isClosed(status);
+  const checks = useChecks(jobId, open);
+  const standards = useStandards(open);
   const add = useAddPoint(jobId);
   const remove = useRemovePoint(jobId);
   const submit = useSubmitJob(jobId);
@@ -42,7 +48,9 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
   const selected = points.find((p) => p.id === params.get('point')) ?? points[0];
   // What a check would refuse today (a standard since overdue…) says nothing about a closed job.
   const reasons = closed ? [] : (refused ?? checks.data?.reasons ?? []);
-  const refetchAll = () => Promise.all([job.refetch(), checks.refetch()]);
+  // The checks are asked for once the job is known to be open: until they answer, nothing is said to pass.
+  const checked = refused !== null || checks.data !== undefined;
+  const refetchAll = () => Promise.all([job.refetch(), ...(closed ? [] : [checks.refetch()])]);
   const def = template.definition;
   const basis = def.cmc?.basis ? def.inputs.find((i) => i.symbol === def.cmc!.basis) : undefined;
   const nominalUnit = basis?.displayUnit ?? basis?.unit ?? def.measurand.unit ?? '';
@@ -119,7 +127,7 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
                   <button type="button" role="tab" aria-selected={p.id === selected?.id} className={`rounded-l-field border px-3 py-1.5 text-sm ${p.id === selected?.id ? 'border-ember-strong bg-ember-soft font-semibold' : 'border-line-strong bg-surface'}`} onClick={() => setParams({ point: p.id })}>
                     Point {p.position}: <span className="font-mono">{formatNumber(p.nominalValue)} {formatUnit(p.nominalUnit)}</span>
                     {p.reported && <span className="ml-2 font-mono text-xs">{p.result!.reported.value} ± {p.result!.reported.U} {formatUnit(p.result!.unit)}</span>}
-                    {!closed && <span className={`ml-2 text-xs ${n ? 'text-danger' : 'text-ok'}`}>{n ? `${n} to fix` : '✓ ready'}</span>}
+                    {!closed && checked && <span className={`ml-2 text-xs ${n ? 'text-danger' : 'text-ok'}`}>{n ? `${n} to fix` : '✓ ready'}</span>}
                   </button>
                   {editable && (
                     <button type="button" aria-label={`Remove point ${p.position}`} className="rounded-r-field border border-l-0 border-line-strong px-2 py-1.5 text-sm hover:bg-sunken" onClick={() => { if (window.confirm(`Remove point ${p.position} with its readings and result?`)) void remove.mutateAsync(p.id); }}>✕</button>
@@ -139,13 +147,17 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
         )}
       </section>
 
-      {selected && (
-        <PointScope key={`scope-${selected.id}`} pointId={selected.id} outsideScope={selected.outsideScope} reason={selected.outsideScopeReason} editable={editable} closed={closed} onSaved={refetchAll} />
-      )}
+      {selected && (closed ? (
+        <ScopeRecord outsideScope={selected.outsideScope} reason={selected.outsideScopeReason} />
+      ) : (
+        <PointScope key={`scope-${selected.id}`} pointId={selected.id} outsideScope={selected.outsideScope} reason={selected.outsideScopeReason} editable={editable} onSaved={refetchAll} />
+      ))}
 
-      {selected && (
-        <BudgetEditor key={selected.id} point={selected} definition={def} standards={standards.data?.standards ?? job.data.standards} reasons={reasons} today={today} editable={editable} closed={closed} onSaved={refetchAll} />
-      )}
+      {selected && (closed ? (
+        <PointRecord key={selected.id} point={selected} definition={def} standards={job.data.standards} />
+      ) : (
+        <BudgetEditor key={selected.id} point={selected} definition={def} standards={standards.data?.standards ?? job.data.standards} reasons={reasons} today={today} editable={editable} onSaved={refetchAll} />
+      ))}
 
       {points.filter((p) => p.reported).length >= 2 && (
         <section className="rounded-card border border-line bg-surface p-4">
@@ -157,7 +169,9 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
       {!closed && (
         <section aria-labelledby="submit-heading" className="rounded-card border border-line bg-surface p-4">
           <h2 id="submit-heading" className="text-lg font-semibold">Checks before review</h2>
-          {reasons.length === 0 ? (
+          {!checked ? (
+            <p className="mt-1 text-sm text-ink-muted">{checks.isError ? `The checks could not be run: ${checks.error.message}` : 'Running the checks…'}</p>
+          ) : reasons.length === 0 ? (
             <p className="mt-1 text-sm text-ok">✓ Every check passes.</p>
           ) : (
             <ul className="mt-1 flex flex-col gap-1 text-sm" aria-label="What to fix before submitting">
@@ -179,7 +193,17 @@ export function JobPage({ jobId, userId, today }: { jobId: string; userId: strin
   );
 }
 
-function PointScope({ pointId, outsideScope, reason, editable, closed, onSaved }: { pointId: string; outsideScope: boolean; reason: string | null; editable: boolean; closed: boolean; onSaved: () => Promise<unknown> }) {
+/** Whether a closed job's point is within the scope of accreditation, as a line of text. */
+function ScopeRecord({ outsideScope, reason }: { outsideScope: boolean; reason: string | null }) {
+  return (
+    <p className="rounded-card border border-line bg-surface px-4 py-2 text-sm" data-testid="scope-record">
+      <span className="font-semibold">Scope of accreditation:</span>{' '}
+      {outsideScope ? <>this point is outside the scope. Reason, printed on the certificate: {reason || '—'}</> : 'this point is within the scope.'}
+    </p>
+  );
+}
+
+function PointScope({ pointId, outsideScope, reason, editable, onSaved }: { pointId: string; outsideScope: boolean; reason: string | null; editable: boolean; onSaved: () => Promise<unknown> }) {
   const [on, setOn] = useState(outsideScope);
   const [text, setText] = useState(reason ?? '');
   const [error, setError] = useState<string | null>(null);
@@ -198,7 +222,7 @@ function PointScope({ pointId, outsideScope, reason, editable, closed, onSaved }
       <div className="mt-2 flex flex-wrap items-end gap-3 text-sm">
         <label className="flex items-center gap-2"><input type="checkbox" checked={on} disabled={!editable} onChange={(e) => setOn(e.target.checked)} /> This point is outside the scope of accreditation</label>
         <label className="flex flex-1 flex-col gap-1">Reason (printed on the certificate)<input className="rounded-field border border-line-strong px-2 py-1" value={text} disabled={!editable || !on} onChange={(e) => setText(e.target.value)} /></label>
-        {!closed && <Button variant="secondary" disabled={!editable} onClick={() => void save()}>Save</Button>}
+        <Button variant="secondary" disabled={!editable} onClick={() => void save()}>Save</Button>
       </div>
       {error && <p className="mt-1 text-sm text-danger">✕ {error}</p>}
     </details>
