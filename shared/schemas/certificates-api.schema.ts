@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { certificateSchema } from './certificate.schema';
+import { jobAmendsSchema } from './jobs.schema';
 
 export const CERTIFICATE_STATUSES = ['current', 'superseded', 'withdrawn'] as const;
 export const certificateStatusSchema = z.enum(CERTIFICATE_STATUSES);
@@ -84,7 +85,11 @@ export const reviewDetailSchema = z.object({
   preview: certificateSchema.nullable(),
   /** What stops approval: failed checks, missing certificate content, the reviewer being the analyst. */
   blocking: z.array(readinessIssueSchema),
-  amends: z.object({ certificateNumber: z.string(), reason: z.string() }).nullable(),
+  /**
+   * Set while the job is an amendment being prepared: the certificate it amends, why, and the job
+   * that certificate was issued from (`jobId`, `jobNumber`), as the job's own page names it.
+   */
+  amends: jobAmendsSchema.pick({ certificateNumber: true, reason: true, jobId: true, jobNumber: true }).nullable(),
   settings: reviewSettingsSchema,
 });
 export type ReviewDetail = z.infer<typeof reviewDetailSchema>;

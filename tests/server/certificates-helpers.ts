@@ -13,5 +13,5 @@ export async function approve(t: TestApp, jobId: string) {
   const signatory = await t.signIn('signatory');
   const res = await signatory.post(`/api/review/jobs/${jobId}/approve`).send({ password: DEMO_PASSWORD });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
-  return res.body.certificate as { id: string; number: string; pdfSha256: string; status: string };
+  return res.body.certificate as { id: string; number: string; pdfSha256: string; status: string; jobId: string; jobNumber: string };
 }

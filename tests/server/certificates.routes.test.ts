@@ -14,7 +14,7 @@ import { approve, submittedJob } from './certificates-helpers';
 import { fonts, pageTexts, pdfsig, tempDir, writeTemp } from './pdf/poppler';
 
 let t: TestApp;
-let cert: { id: string; number: string; pdfSha256: string };
+let cert: { id: string; number: string; pdfSha256: string; jobId: string; jobNumber: string };
 let pdf: Buffer;
 let path: string;
 
@@ -161,7 +161,7 @@ describe('amendment (ISO/IEC 17025:2017 §7.8.8)', () => {
     await analyst.post(`/api/jobs/${newJobId}/submit`).expect(200);
     const signatory = await t.signIn('signatory');
     const page = await signatory.get(`/api/review/jobs/${newJobId}`).expect(200);
-    expect(page.body.amends).toEqual({ certificateNumber: cert.number, reason: 'The serial number of the item was misprinted.' });
+    expect(page.body.amends).toEqual({ certificateNumber: cert.number, reason: 'The serial number of the item was misprinted.', jobId: cert.jobId, jobNumber: cert.jobNumber });
     expect(page.body.preview.amends.certificateNumber).toBe(cert.number);
 
     const res = await signatory.post(`/api/review/jobs/${newJobId}/approve`).send({ password: DEMO_PASSWORD }).expect(201);

@@ -8,6 +8,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/db/seed';
+import { reviewDetailSchema } from '../../shared/schemas/certificates-api.schema';
 import { createTestApp, type TestApp } from '../setup/test-app';
 import { approve, submittedJob } from './certificates-helpers';
 
@@ -30,6 +31,23 @@ describe('review queue and page', () => {
     expect(page.body.preview.traceability.standards.length).toBe(2);
     expect(page.body.preview.signatory.name).toBe('Sam Signatory (demo)');
   });
+
+  it('when the job is an amendment, then the page names the certificate it amends, why, and the job that certificate was issued from (ISO/IEC 17025:2017 §7.8.8)', async () => {
+    const { jobId: originalId, number: originalNumber } = await submittedJob(t);
+    const cert = await approve(t, originalId);
+    const reason = 'The serial number of the item was misprinted.';
+    const qm = await t.signIn('quality_manager');
+    const opened = await qm.post(`/api/certificates/${cert.id}/amend`).send({ reason }).expect(201);
+    const revisionId = opened.body.jobId as string;
+    await (await t.signIn('analyst')).post(`/api/jobs/${revisionId}/submit`).expect(200);
+
+    const page = await (await t.signIn('signatory')).get(`/api/review/jobs/${revisionId}`).expect(200);
+    expect(reviewDetailSchema.safeParse(page.body).success).toBe(true);
+    expect(page.body.amends).toEqual({ certificateNumber: cert.number, reason, jobId: originalId, jobNumber: originalNumber });
+    // The quality manager reads the same page; the original job's own review names no amendment.
+    expect((await qm.get(`/api/review/jobs/${revisionId}`).expect(200)).body.amends.jobId).toBe(originalId);
+    expect((await qm.get(`/api/review/jobs/${originalId}`).expect(200)).body.amends).toBeNull();
+  }, 120_000);
 
   it('when not signed in or an analyst, then 401 and 403', async () => {
     await request(t.app).get('/api/review/queue').expect(401);

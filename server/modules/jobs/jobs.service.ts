@@ -265,6 +265,12 @@ export function createJobsService(deps: { db: Db; jobsRepo: JobsRepository; sour
       });
     },
 
+    /**
+     * The amendment a job was opened for, with the job whose certificate it amends (for a link
+     * back, as on the job's own page); null for any other job.
+     */
+    amendsOf: (jobId: string) => jobsRepo.amendsOf(jobId),
+
     /** For the certificate workflow (issue 6): move the status, audited in `tx`. */
     transitionJob: transition,
 

@@ -28,7 +28,7 @@ export function createReviewService(deps: {
   db: Db;
   auth: Auth;
   clock: () => Date;
-  jobs: Pick<JobsService, 'getJobForReview' | 'transitionJob'>;
+  jobs: Pick<JobsService, 'getJobForReview' | 'transitionJob' | 'amendsOf'>;
   certificates: CertificatesService;
   certificatesRepo: CertificatesRepository;
 }) {
@@ -58,7 +58,7 @@ export function createReviewService(deps: {
       const review = await load(jobId);
       const settings = await repo.settings();
       const assembled = await deps.certificates.assemble(review, { number: PREVIEW_NUMBER, signatory: deps.certificates.signatoryOf(actor), now: deps.clock() });
-      const amendment = await repo.amendmentOfJob(jobId);
+      const amendment = await deps.jobs.amendsOf(jobId);
       const blocking: Array<{ code: string; message: string }> = [];
       if (review.job.status !== 'submitted') blocking.push({ code: 'NOT_SUBMITTED', message: `The job is ${review.job.status === 'draft' ? 'a draft' : review.job.status}: only a job submitted for review can be approved.` });
       for (const r of review.checks.reasons) blocking.push({ code: r.code, message: r.message });
@@ -93,7 +93,9 @@ export function createReviewService(deps: {
         checks: review.checks,
         preview: assembled.data,
         blocking,
-        amends: amendment && amendment.status === 'open' ? { certificateNumber: amendment.certificateNumber, reason: amendment.reason } : null,
+        // While the amendment is prepared: the certificate it amends, why, and the job that
+        // certificate was issued from (ISO/IEC 17025:2017 §7.8.8), for a link back to it.
+        amends: amendment && amendment.status === 'open' ? { certificateNumber: amendment.certificateNumber, reason: amendment.reason, jobId: amendment.jobId, jobNumber: amendment.jobNumber } : null,
         settings,
       };
     },

@@ -12,8 +12,8 @@ import { NoBreak } from '../../../components/ui/no-break';
 import { withoutFinalStop } from '../../../lib/sentence';
 import { JobStatusBadge } from './job-status';
 
-/** The other job of an amendment, by its number, as a link to its page. */
-function JobLink({ id, number }: { id: string; number: string }) {
+/** The other job of an amendment, by its number, as a link to its page (also on the review page). */
+export function JobLink({ id, number }: { id: string; number: string }) {
   return <Link className="font-mono font-semibold text-ember-strong underline" to={`/app/jobs/${id}`}>{number}</Link>;
 }
 

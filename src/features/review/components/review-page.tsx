@@ -1,10 +1,12 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router';
 import { Cautions } from '../../../components/ui/cautions';
+import { NoBreak } from '../../../components/ui/no-break';
 import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
 import { JOB_STATUS_LABELS, type JobStatus } from '../../../../shared/schemas/jobs.schema';
+import { JobLink } from '../../jobs/components/amendment';
 import { Sym } from '../../templates/components/math-tex';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
@@ -68,7 +70,8 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
       )}
       {d.amends && (
         <Notice tone="warn" label={`Amendment of certificate ${d.amends.certificateNumber}`}>
-          Reason: {withoutFinalStop(d.amends.reason)}. When approved, the new certificate replaces {d.amends.certificateNumber}, which is then marked superseded.
+          {/* As the job's own page says it (src/features/jobs/components/amendment.tsx), with the same link back. */}
+          Certificate <NoBreak>{d.amends.certificateNumber}</NoBreak> was issued from job <JobLink id={d.amends.jobId} number={d.amends.jobNumber} />. Reason: {withoutFinalStop(d.amends.reason)}. When approved, the new certificate replaces <NoBreak>{d.amends.certificateNumber}</NoBreak>, which is then marked superseded.
         </Notice>
       )}
       <Cautions />
