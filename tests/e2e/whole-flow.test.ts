@@ -331,6 +331,11 @@ describe('the whole job, end to end, as each of its users', () => {
     // …and the original job's row names the draft that amends its certificate.
     await page.locator('tr', { has: page.getByRole('link', { name: jobNumber, exact: true }) }).getByText(`Being amended in ${revision}`).waitFor();
     await shot('analyst-jobs-amendment');
+    // Searching for the draft's number also finds the job it amends, marked as such.
+    await page.getByRole('searchbox', { name: 'Search' }).fill(revision);
+    await expect.poll(() => page.getByRole('table', { name: 'Calibration jobs' }).locator('tbody tr').count(), { timeout: 30_000 }).toBe(2);
+    await page.locator('tr', { has: page.getByRole('link', { name: jobNumber, exact: true }) }).getByText(`Being amended in ${revision}`).waitFor();
+    await shot('analyst-jobs-search-amendment');
     // The original job's page names the draft that amends its certificate, with its status, and links to it.
     await page.goto(jobUrl);
     await page.getByRole('heading', { name: jobNumber }).waitFor();
@@ -342,6 +347,11 @@ describe('the whole job, end to end, as each of its users', () => {
     await page.getByRole('heading', { name: 'Stored result' }).waitFor();
     expect(await page.getByRole('heading', { name: 'Checks before review' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: /Run Monte Carlo|Save and calculate|Save budget/ }).count()).toBe(0);
+    // …and its inputs and scope read as text, not as fields that cannot be used.
+    const inputs = page.getByRole('region', { name: 'Input quantities' });
+    await expect.poll(() => inputs.locator('tr[data-input="T_ref"] [data-parameter="expanded"]').textContent(), { timeout: 30_000 }).toMatch(/^U = \d+(\.\d+)?\u00a0°C$/);
+    expect(await inputs.locator('input, select, textarea').count()).toBe(0);
+    await page.getByTestId('scope-record').waitFor();
     await shot('analyst-original-being-amended');
     await amendedBy.getByRole('link', { name: revision }).click();
     await page.getByRole('heading', { name: revision }).waitFor();
@@ -358,6 +368,9 @@ describe('the whole job, end to end, as each of its users', () => {
     await page.goto(`${server.url}/app/review`);
     await page.getByRole('table', { name: /awaiting review/i }).getByRole('link', { name: revision }).click();
     await page.getByText(`Amendment of certificate ${number}`).waitFor();
+    // The review names the job the amended certificate was issued from, with a link to it.
+    expect(await page.getByRole('link', { name: jobNumber, exact: true }).getAttribute('href')).toBe(new URL(jobUrl).pathname);
+    await shot('signatory-amendment-review-top', false);
     await page.getByLabel(/your password/i).fill(DEMO_PASSWORD);
     await shot('signatory-amendment-review');
     await page.getByRole('button', { name: /approve and issue/i }).click();
