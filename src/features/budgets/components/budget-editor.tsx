@@ -6,7 +6,6 @@
 import { Fragment, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { evaluateGum, EngineError, type EvaluationResult } from '../../../../shared/engine';
 import { formatNumber } from '../../../../shared/format/number';
-import { roundUncertainty } from '../../../../shared/format/result';
 import { formatUnit } from '../../../../shared/format/units';
 import { pointBudget } from '../../../../shared/jobs/point-budget';
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
@@ -17,10 +16,9 @@ import { ApiError } from '../../../lib/api-client';
 import { calculatePoint, fromStandard, savePoint, typedReadings, uploadReadings } from '../../jobs/api/points';
 import type { Point, Reason, Standard } from '../../jobs/api/types';
 import { BudgetTable } from './budget-table';
-import { ContributionsChart, HistogramChart, PlanckChart } from './charts';
 import { InputRow } from './input-row';
 import { MonteCarloPanel } from './monte-carlo-panel';
-import { formatDateTimeUtc } from '../../../../shared/format/date';
+import { StoredResultSection } from './stored-result';
 import { useDebounced } from '../../../lib/use-debounced';
 import { Sym } from '../../templates/components/math-tex';
 import { symbolPlain } from '../../templates/components/symbol-tex';
@@ -114,10 +112,6 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
 
   const byStandard = new Map(standards.map((s) => [s.id, s]));
   const reasonsFor = (symbol: string | null) => reasons.filter((r) => r.pointId === point.id && r.symbol === symbol).map((r) => r.message.replace(/^Point \d+: /, ''));
-  const stored = point.result;
-  const T = stored?.gum.budget.find((b) => b.symbol === 'T_bb' || b.symbol === 'T_ref' || b.symbol === 'T')?.estimate;
-  const lambda = stored?.gum.budget.find((b) => b.symbol.startsWith('lambda'))?.estimate;
-  const radiometric = definition.equations.some((e) => /planck|sh_signal|its90_ratio|band_radiance/.test(e));
 
   return (
     <div className="flex flex-col gap-5">
@@ -199,74 +193,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
 
       {!closed && <MonteCarloPanel pointId={point.id} defaultTrials={definition.monteCarlo?.trials ?? 1_000_000} disabled={!editable || busy || !live.result} beforeRun={save} onDone={() => void onSaved()} />}
 
-      {stored && (
-        <section aria-labelledby="stored-heading" className="rounded-card border border-line bg-surface p-4">
-          <h3 id="stored-heading" className="text-base font-semibold">Stored result</h3>
-          <StoredResult point={point} />
-          {stored.mcm && <HistogramChart result={stored} />}
-          <div className="mt-4 grid gap-4 lg:grid-cols-2">
-            <div>
-              <h4 className="text-sm font-semibold">Contributions, largest first</h4>
-              <ContributionsChart result={stored} />
-            </div>
-            {radiometric && T && lambda && (
-              <div>
-                <h4 className="text-sm font-semibold">Planck curve at the point</h4>
-                <PlanckChart T={T} lambda={lambda} />
-              </div>
-            )}
-          </div>
-        </section>
-      )}
-    </div>
-  );
-}
-
-/**
- * Figures rounded to the decimal place of an uncertainty's second significant digit (GUM 7.2.6;
- * JCGM 101:2008 §7.9), as the value beside it is; four significant digits where a power of ten
- * would be needed.
- */
-function atPlaceOf(uncertainty: number) {
-  const { lastDigitExponent: e } = roundUncertainty(uncertainty);
-  return (x: number) => {
-    const m = Math.max(Math.abs(x), uncertainty);
-    if (!(uncertainty > 0) || m >= 1e6 || m < 1e-3) return formatNumber(x, { digits: 4 });
-    const xr = e > 0 ? Math.round(x / 10 ** e) * 10 ** e : x;
-    return formatNumber(xr, { decimals: Math.max(0, -e), notation: 'fixed' });
-  };
-}
-
-function StoredResult({ point }: { point: Point }) {
-  const r = point.result!;
-  const rep = point.reported!;
-  const unit = formatUnit(r.unit);
-  // The intervals at the decimal place of their U, not 4 significant digits beside a U of two.
-  const g = atPlaceOf(r.gum.U);
-  const m = r.mcm ? atPlaceOf(r.mcm.u) : g;
-  const mi = r.mcm ? atPlaceOf((r.mcm.interval[1] - r.mcm.interval[0]) / 2) : g;
-  return (
-    <div className="mt-1 text-sm">
-      <p className="font-mono tabular-nums">
-        <Sym name={r.measurand} className="font-sans" /> = {r.reported.value} {unit}, U = {r.reported.U} {unit} (k = {r.reported.k}) · GUM interval [{g(r.gum.interval[0])}, {g(r.gum.interval[1])}] {unit}
-      </p>
-      {r.mcm && (
-        <p className="font-mono tabular-nums">
-          Monte Carlo: y = {m(r.mcm.y)} {unit}, u = {m(r.mcm.u)} {unit}, {r.mcm.intervalKind} interval [{mi(r.mcm.interval[0])}, {mi(r.mcm.interval[1])}] {unit}
-        </p>
-      )}
-      {r.validation ? (
-        <p className={r.validation.passed ? 'text-ok' : 'font-semibold text-warn'}>
-          {r.validation.passed ? '✓ GUM validated by Monte Carlo' : '⚠ GUM not validated by Monte Carlo'} (JCGM 101 §8: <i>d</i><sub>low</sub> = {r.validation.dLow.toPrecision(2)}, <i>d</i><sub>high</sub> = {r.validation.dHigh.toPrecision(2)}, <i>δ</i> = {r.validation.delta.toPrecision(2)})
-        </p>
-      ) : (
-        <p className="text-ink-muted">No Monte Carlo run for this result yet.</p>
-      )}
-      {rep.note && <p className="font-semibold text-warn">{rep.note}</p>}
-      <p className="text-xs text-ink-muted">
-        {point.current ? 'Current' : '✕ Not current: the budget changed after this result'} · {point.resultEngineVersion}
-        {point.resultSeed !== null ? ` · seed ${point.resultSeed}` : ''} · computed {formatDateTimeUtc(point.computedAt, { seconds: true })}
-      </p>
+      <StoredResultSection point={point} definition={definition} />
     </div>
   );
 }

@@ -8,9 +8,7 @@
  */
 import { Fragment, useMemo, type ReactNode } from 'react';
 import { evaluateGum, EngineError, typeA, type EvaluationResult } from '../../../../shared/engine';
-import { formatDateTimeUtc } from '../../../../shared/format/date';
 import { formatNumber } from '../../../../shared/format/number';
-import { roundUncertainty } from '../../../../shared/format/result';
 import { formatUnit, printedUnit } from '../../../../shared/format/units';
 import { pointBudget } from '../../../../shared/jobs/point-budget';
 import type { Distribution } from '../../../../shared/schemas/budget.schema';
@@ -18,7 +16,7 @@ import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 import type { TemplateDefinition } from '../../../../shared/schemas/template.schema';
 import { INPUT_SOURCE_LABELS } from '../../../../shared/schemas/template.schema';
 import { BudgetTable } from '../../budgets/components/budget-table';
-import { ContributionsChart, HistogramChart, PlanckChart } from '../../budgets/components/charts';
+import { StoredResultSection } from '../../budgets/components/stored-result';
 import { DISTRIBUTION_LABELS, parameterKeys, POSITION_KEYS, toDisplay, WIDTH_KEYS } from '../../budgets/components/units';
 import { Sym } from '../../templates/components/math-tex';
 import type { Point, Standard } from '../api/types';
@@ -114,59 +112,6 @@ function InputRecordRow({ input, shown, standards }: { input: PointInput; shown:
 }
 
 /**
- * Figures rounded to the decimal place of an uncertainty's second significant digit (GUM 7.2.6;
- * JCGM 101:2008 §7.9), as the value beside it is; four significant digits where a power of ten
- * would be needed. As the budget editor's stored result rounds them.
- */
-function atPlaceOf(uncertainty: number) {
-  const { lastDigitExponent: e } = roundUncertainty(uncertainty);
-  return (x: number) => {
-    const m = Math.max(Math.abs(x), uncertainty);
-    if (!(uncertainty > 0) || m >= 1e6 || m < 1e-3) return formatNumber(x, { digits: 4 });
-    const xr = e > 0 ? Math.round(x / 10 ** e) * 10 ** e : x;
-    return formatNumber(xr, { decimals: Math.max(0, -e), notation: 'fixed' });
-  };
-}
-
-/**
- * The stored result, worded and rounded as the budget editor words it
- * (src/features/budgets/components/budget-editor.tsx, StoredResult, which that file keeps to
- * itself): a change there belongs here too.
- */
-function StoredResult({ point }: { point: Point }) {
-  const r = point.result!;
-  const rep = point.reported!;
-  const unit = formatUnit(r.unit);
-  const g = atPlaceOf(r.gum.U);
-  const m = r.mcm ? atPlaceOf(r.mcm.u) : g;
-  const mi = r.mcm ? atPlaceOf((r.mcm.interval[1] - r.mcm.interval[0]) / 2) : g;
-  return (
-    <div className="mt-1 text-sm">
-      <p className="font-mono tabular-nums">
-        <Sym name={r.measurand} className="font-sans" /> = {r.reported.value} {unit}, U = {r.reported.U} {unit} (k = {r.reported.k}) · GUM interval [{g(r.gum.interval[0])}, {g(r.gum.interval[1])}] {unit}
-      </p>
-      {r.mcm && (
-        <p className="font-mono tabular-nums">
-          Monte Carlo: y = {m(r.mcm.y)} {unit}, u = {m(r.mcm.u)} {unit}, {r.mcm.intervalKind} interval [{mi(r.mcm.interval[0])}, {mi(r.mcm.interval[1])}] {unit}
-        </p>
-      )}
-      {r.validation ? (
-        <p className={r.validation.passed ? 'text-ok' : 'font-semibold text-warn'}>
-          {r.validation.passed ? '✓ GUM validated by Monte Carlo' : '⚠ GUM not validated by Monte Carlo'} (JCGM 101 §8: <i>d</i><sub>low</sub> = {r.validation.dLow.toPrecision(2)}, <i>d</i><sub>high</sub> = {r.validation.dHigh.toPrecision(2)}, <i>δ</i> = {r.validation.delta.toPrecision(2)})
-        </p>
-      ) : (
-        <p className="text-ink-muted">No Monte Carlo run for this result yet.</p>
-      )}
-      {rep.note && <p className="font-semibold text-warn">{rep.note}</p>}
-      <p className="text-xs text-ink-muted">
-        {point.current ? 'Current' : '✕ Not current: the budget changed after this result'} · {point.resultEngineVersion}
-        {point.resultSeed !== null ? ` · seed ${point.resultSeed}` : ''} · computed {formatDateTimeUtc(point.computedAt, { seconds: true })}
-      </p>
-    </div>
-  );
-}
-
-/**
  * The point of a closed job: inputs and correlations as text, then the budget, the stored result
  * and the charts as the budget editor shows them. `standards`: the reference standards the job's
  * points took values from.
@@ -183,10 +128,6 @@ export function PointRecord({ point, definition, standards }: { point: Point; de
       return { result: null, error: err instanceof EngineError ? err.message : String(err) };
     }
   }, [definition, point.inputs, point.correlations]);
-  const stored = point.result;
-  const T = stored?.gum.budget.find((b) => b.symbol === 'T_bb' || b.symbol === 'T_ref' || b.symbol === 'T')?.estimate;
-  const lambda = stored?.gum.budget.find((b) => b.symbol.startsWith('lambda'))?.estimate;
-  const radiometric = definition.equations.some((e) => /planck|sh_signal|its90_ratio|band_radiance/.test(e));
 
   return (
     <div className="flex flex-col gap-5">
@@ -236,25 +177,7 @@ export function PointRecord({ point, definition, standards }: { point: Point; de
         ))}
       </section>
 
-      {stored && (
-        <section aria-labelledby="stored-heading" className="rounded-card border border-line bg-surface p-4">
-          <h3 id="stored-heading" className="text-base font-semibold">Stored result</h3>
-          <StoredResult point={point} />
-          {stored.mcm && <HistogramChart result={stored} />}
-          <div className="mt-4 grid gap-4 lg:grid-cols-2">
-            <div>
-              <h4 className="text-sm font-semibold">Contributions, largest first</h4>
-              <ContributionsChart result={stored} />
-            </div>
-            {radiometric && T && lambda && (
-              <div>
-                <h4 className="text-sm font-semibold">Planck curve at the point</h4>
-                <PlanckChart T={T} lambda={lambda} />
-              </div>
-            )}
-          </div>
-        </section>
-      )}
+      <StoredResultSection point={point} definition={definition} />
     </div>
   );
 }
