@@ -15,7 +15,9 @@ import { Document, Page, StyleSheet, Text, View, type Styles } from '@react-pdf/
 import type { CertificateAnnex, CertificateData, CertificateResultPoint, ConformityResult } from '../../shared/schemas/certificate.schema';
 import { MONO, SANS } from './fonts';
 import { coverageProbability, dateRange, dateTimeUtc, dof, fixed, longDate, NBSP, num, percent, plusMinus, printReported, withUnit } from './format';
-import { formatCondition, formatUnit, subscriptUpright, symbolText } from '../../shared/format';
+import { formatCondition, formatUnit } from '../../shared/format';
+import { symbolPiece } from './equation';
+import { ModelEquations, SymbolRun } from './equation-text';
 import { McmHistogram } from './histogram';
 import { palette, size } from './theme';
 
@@ -71,18 +73,9 @@ const CONFORMITY_WORDS: Record<ConformityResult, string> = {
 
 type Style = Styles[string];
 
-/**
- * A model symbol as the screens typeset it (shared/format/symbols.ts): italic base, Greek where the
- * identifier spells it, a descriptive subscript upright and a one-letter one italic (ISO 80000-1 §7.1).
- */
+/** A model symbol as the screens typeset it (shared/format/symbols.ts), as in the model lines (./equation-text.tsx). */
 function Sym({ symbol, style }: { symbol: string; style?: Style }) {
-  const { base, sub } = symbolText(symbol);
-  return (
-    <Text style={[{ fontFamily: SANS, fontStyle: 'italic' }, style ?? {}]}>
-      {base}
-      {sub !== null ? <Text style={{ fontStyle: subscriptUpright(sub) ? 'normal' : 'italic', fontSize: 5.8, verticalAlign: 'sub' }}>{sub}</Text> : null}
-    </Text>
-  );
+  return <SymbolRun piece={symbolPiece(symbol)} style={style} />;
 }
 
 function KV({ k, children }: { k: string; children: ReactNode }) {
@@ -376,9 +369,7 @@ function AnnexPoint({ point, index }: { point: CertificateResultPoint; index: nu
         <Text style={s.h3}>
           Point {index + 1} · nominal {point.nominal.label} · <Sym symbol={point.measurand.symbol} /> = <Result point={point} />
         </Text>
-        {annex.equations.length ? (
-          <Text style={[s.small, { fontFamily: MONO, marginBottom: 2 }]}>Model: {annex.equations.join(';  ')}</Text>
-        ) : null}
+        {annex.equations.length ? <ModelEquations equations={annex.equations} inputs={annex.gum.budget.map((r) => r.symbol)} /> : null}
         <BudgetTable annex={annex} unit={unit} />
       </View>
       <View style={s.summaryGrid}>

@@ -155,6 +155,13 @@ describe('certificate PDF content (ISO/IEC 17025:2017 7.8.2.1 and 7.8.4.1)', () 
     expect(annexText).not.toContain('δε');
   });
 
+  it('annex: prints each model with its symbols as the budget rows type them (ISO 80000-1 §7.1), − and · for the operators, no raw identifiers', () => {
+    const annexText = pages.slice(2).join('\n');
+    // pdftotext gives a lowered subscript back right after its base.
+    expect(annexText).toMatch(/Model:\s+Tbb = Tref \+ δTunif \+ δTstab − cε · deps − δTamb − δTsse;\s+E = Tind \+ δTres − Tbb/);
+    expect(annexText).not.toMatch(/T_bb|dT_|c_eps/);
+  });
+
   it('writes a quantity mu with the Greek letter and the prefix micro with the micro sign (SI Brochure §3)', async () => {
     const results = demoCertificateInput.results.map((r) => ({ ...r, measurand: { ...r.measurand, symbol: 'mu_a' } }));
     const path = writeTemp(dir, 'mu.pdf', await renderCertificatePdf(certificateSchema.parse({ ...demoCertificateInput, results })));
