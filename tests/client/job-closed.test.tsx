@@ -127,6 +127,19 @@ describe('an issued job', () => {
     expect(screen.getByText(/Scope of accreditation/)).toBeTruthy();
   });
 
+  it('shows the budget as stored with the result the certificate came from, not recomputed by today\'s engine', async () => {
+    // A stored budget row that today's engine would not give (as after an engine change): the
+    // record shows what was stored (ISO/IEC 17025:2017 §7.5.1, technical records; common practice).
+    const stored = structuredClone(result);
+    const row = stored.gum.budget.find((b) => b.symbol === 'eps_bb')!;
+    row.contribution = 98.7654;
+    await openWith('issued', { ...point, result: stored });
+    const budget = await screen.findByRole('table', { name: 'Uncertainty budget' });
+    const recomputed = result.gum.budget.find((b) => b.symbol === 'eps_bb')!;
+    expect(stored.gum.budget.find((b) => b.symbol === 'eps_bb')!.contribution).not.toBe(recomputed.contribution);
+    expect(budget.querySelector('tr[data-symbol="eps_bb"]')!.textContent).toContain('98.8');
+  });
+
   it('names the standard a value was taken from and gives a point outside the scope its reason, as text', async () => {
     // The budget editor's note names the standard; a note that does not is preceded by the standard.
     const taken = inputs.map((i) =>

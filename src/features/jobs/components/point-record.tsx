@@ -119,7 +119,10 @@ function InputRecordRow({ input, shown, standards }: { input: PointInput; shown:
 export function PointRecord({ point, definition, standards }: { point: Point; definition: TemplateDefinition; standards: Standard[] }) {
   // Each input in the unit the analyst chose for it, as the editor opened it; SI inside.
   const units = useMemo(() => Object.fromEntries(point.inputs.map((i) => [i.symbol, i.displayUnit ?? i.unit])), [point.inputs]);
+  // The stored result is the record (the certificate was issued from it): its budget is shown as
+  // stored, whatever engine version reads the page later. Recomputed only for a point without one.
   const budget = useMemo((): { result: EvaluationResult | null; error: ReactNode } => {
+    if (point.result) return { result: point.result, error: null };
     const doc = pointBudget(definition, { inputs: point.inputs, correlations: point.correlations });
     if (!doc) return { result: null, error: 'Not every input has a value, so there is no budget.' };
     try {
@@ -127,7 +130,7 @@ export function PointRecord({ point, definition, standards }: { point: Point; de
     } catch (err) {
       return { result: null, error: err instanceof EngineError ? err.message : String(err) };
     }
-  }, [definition, point.inputs, point.correlations]);
+  }, [definition, point.result, point.inputs, point.correlations]);
 
   return (
     <div className="flex flex-col gap-5">
