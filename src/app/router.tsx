@@ -1,9 +1,17 @@
 /**
  * Every route of the client, in one place. Sections of /app get their page from `SECTION_PAGES`;
  * a feature replaces its placeholder there (navigation labels and roles live in ./navigation).
+ *
+ * The landing page, the layouts and the error and not-found pages are in the entry chunk; every
+ * other page is loaded when it is first opened, through React Router's lazy route object (`lazy.Component`),
+ * so its module and what only it uses (the budget editor with the engine and the charts, the
+ * template editor, the review with its certificate preview…) come in a chunk of their own. The
+ * router resolves it before it renders the page, and the root's hydrateFallbackElement stands in
+ * while the first page of a visit loads. Chunks are served by this app like the entry: nothing
+ * is fetched from elsewhere.
  */
 import type { QueryClient } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
+import type { ComponentType } from 'react';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs, type RouteObject } from 'react-router';
 import { getMe, meQueryOptions } from '../features/session/api/get-me';
 import { ApiError } from '../lib/api-client';
@@ -14,31 +22,26 @@ import { NoRolePage } from './routes/no-role';
 import { NotFoundPage, StandaloneNotFound } from './routes/not-found';
 import { PublicLayout } from './routes/public-layout';
 import { RouteErrorPage } from './routes/route-error';
-import { SectionPage } from './routes/section-page';
-import { SignInPage } from './routes/sign-in';
-import { TemplatesPage, TemplateVersionPage } from './routes/templates-page';
-import { VerifyPage } from './routes/verify';
-import { CertificatesSectionPage, MailboxPage, MailSectionPage, MyCertificatesPage, ReviewJobRoute, ReviewSectionPage } from './routes/certificate-pages';
-import { JobDetailPage, JobsPage, NewJobPage } from './routes/jobs-page';
-import { StandardDetailPage, StandardsPage } from './routes/standards-page';
-import { CustomerPage, CustomersPage } from './routes/customers-page';
-import { UsersPage } from './routes/users-page';
-import { AuditPage } from './routes/audit-page';
-import { SetPasswordPage } from './routes/set-password';
+
+/** A page's component, imported when the route is first matched. */
+type PageLoader = () => Promise<ComponentType>;
+
+/** A route whose page comes from `load` on demand (React Router 7 lazy route object). */
+const lazyPage = (load: PageLoader): Pick<RouteObject, 'lazy'> => ({ lazy: { Component: load } });
 
 /** The page of each /app section. Replace an entry when its feature is built. */
-const SECTION_PAGES: Record<SectionId, ReactNode> = {
-  users: <UsersPage />,
-  lab: <SectionPage id="lab" />,
-  mail: <MailSectionPage />,
-  audit: <AuditPage />,
-  templates: <TemplatesPage />,
-  standards: <StandardsPage />,
-  customers: <CustomersPage />,
-  jobs: <JobsPage />,
-  review: <ReviewSectionPage />,
-  certificates: <CertificatesSectionPage />,
-  'my-certificates': <MyCertificatesPage />,
+const SECTION_PAGES: Record<SectionId, PageLoader> = {
+  users: async () => (await import('./routes/users-page')).UsersPage,
+  lab: async () => (await import('./routes/section-page')).LabSectionPage,
+  mail: async () => (await import('./routes/certificate-pages')).MailSectionPage,
+  audit: async () => (await import('./routes/audit-page')).AuditPage,
+  templates: async () => (await import('./routes/templates-page')).TemplatesPage,
+  standards: async () => (await import('./routes/standards-page')).StandardsPage,
+  customers: async () => (await import('./routes/customers-page')).CustomersPage,
+  jobs: async () => (await import('./routes/jobs-page')).JobsPage,
+  review: async () => (await import('./routes/certificate-pages')).ReviewSectionPage,
+  certificates: async () => (await import('./routes/certificate-pages')).CertificatesSectionPage,
+  'my-certificates': async () => (await import('./routes/certificate-pages')).MyCertificatesPage,
 };
 
 /** Guard of /app: the signed-in user, or a redirect to /sign-in that comes back here. */
@@ -93,9 +96,10 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
           element: <PublicLayout />,
           children: [
             { index: true, element: <LandingPage /> },
-            { path: 'sign-in', loader: redirectIfSignedIn(queryClient), element: <SignInPage /> },
-            { path: 'verify', element: <VerifyPage /> },
-            { path: 'set-password', element: <SetPasswordPage /> },
+            // The loader is not lazy: it runs while the page's module loads.
+            { path: 'sign-in', loader: redirectIfSignedIn(queryClient), ...lazyPage(async () => (await import('./routes/sign-in')).SignInPage) },
+            { path: 'verify', ...lazyPage(async () => (await import('./routes/verify')).VerifyPage) },
+            { path: 'set-password', ...lazyPage(async () => (await import('./routes/set-password')).SetPasswordPage) },
             { path: '*', element: <StandaloneNotFound /> },
           ],
         },
@@ -114,14 +118,14 @@ export function createRoutes(queryClient: QueryClient): RouteObject[] {
               },
               element: <NoRolePage />,
             },
-            ...Object.values(SECTIONS).map((section) => ({ path: section.path, element: SECTION_PAGES[section.id] })),
-            { path: 'templates/versions/:versionId', element: <TemplateVersionPage /> },
-            { path: 'jobs/new', element: <NewJobPage /> },
-            { path: 'jobs/:jobId', element: <JobDetailPage /> },
-            { path: 'standards/:id', element: <StandardDetailPage /> },
-            { path: 'customers/:id', element: <CustomerPage /> },
-            { path: 'review/:jobId', element: <ReviewJobRoute /> },
-            { path: 'mail/mailbox', element: <MailboxPage /> },
+            ...Object.values(SECTIONS).map((section): RouteObject => ({ path: section.path, ...lazyPage(SECTION_PAGES[section.id]) })),
+            { path: 'templates/versions/:versionId', ...lazyPage(async () => (await import('./routes/template-version-page')).TemplateVersionPage) },
+            { path: 'jobs/new', ...lazyPage(async () => (await import('./routes/jobs-page')).NewJobPage) },
+            { path: 'jobs/:jobId', ...lazyPage(async () => (await import('./routes/job-detail-page')).JobDetailPage) },
+            { path: 'standards/:id', ...lazyPage(async () => (await import('./routes/standards-page')).StandardDetailPage) },
+            { path: 'customers/:id', ...lazyPage(async () => (await import('./routes/customers-page')).CustomerPage) },
+            { path: 'review/:jobId', ...lazyPage(async () => (await import('./routes/review-job-page')).ReviewJobRoute) },
+            { path: 'mail/mailbox', ...lazyPage(async () => (await import('./routes/certificate-pages')).MailboxPage) },
             { path: '*', element: <NotFoundPage home="/app" /> },
           ],
         },

@@ -1,12 +1,33 @@
 /** Renders the real route table in a memory router with a mocked fetch. */
 import { QueryClientProvider } from '@tanstack/react-query';
 import { render } from '@testing-library/react';
-import { createMemoryRouter, RouterProvider } from 'react-router';
+import { createMemoryRouter, RouterProvider, type RouteObject } from 'react-router';
 import { vi } from 'vitest';
 import { createRoutes } from '../../src/app/router';
 import { createQueryClient } from '../../src/lib/query-client';
 import type { Me } from '../../shared/schemas/me.schema';
 import type { Role } from '../../shared/schemas/roles';
+
+/**
+ * The router loads each page's module when the page is first opened (src/app/router.tsx, lazy
+ * routes). Importing a page with the engine, KaTeX or recharts takes a second or more in this
+ * environment, longer than a findBy waits, so every page is loaded here once, when a test file
+ * imports this helper, as the static imports used to do; the router still takes each page through
+ * its lazy route, which then resolves at once.
+ */
+async function loadPages(routes: RouteObject[]): Promise<void> {
+  const loads: Array<Promise<unknown>> = [];
+  const visit = (list: RouteObject[]) => {
+    for (const route of list) {
+      const lazy = route.lazy;
+      if (lazy && typeof lazy === 'object') for (const load of Object.values(lazy)) if (typeof load === 'function') loads.push((load as () => Promise<unknown>)());
+      if (route.children) visit(route.children);
+    }
+  };
+  visit(routes);
+  await Promise.all(loads);
+}
+await loadPages(createRoutes(createQueryClient()));
 
 export const DEMO_LAB = { name: 'Harrowgate Radiometry Laboratory (demo)', address: '12 Kiln Lane, Demo Town', accreditationNumber: 'DEMO-0421' };
 

@@ -1,12 +1,12 @@
 /**
  * Pages of the certificate workflow (issue 6): review queue and review of one job (signatory),
  * issued certificates (signatory, quality manager), the customer's certificates, the e-mail log
- * and the local mailbox. They compose the review, certificates, portal and mail features.
+ * and the local mailbox. They compose the review, certificates, portal and mail features; the review
+ * of one job is ./review-job-page, loaded on its own.
  */
-import { NavLink, useParams } from 'react-router';
+import { NavLink } from 'react-router';
 import { useMe } from '../../features/session/api/get-me';
 import { ReviewQueue } from '../../features/review/components/review-queue';
-import { ReviewJobPage } from '../../features/review/components/review-page';
 import { CertificateList } from '../../features/certificates/components/certificate-list';
 import { MyCertificates } from '../../features/portal/components/my-certificates';
 import { Mailbox, MailLog } from '../../features/mail/components/mail-log';
@@ -35,13 +35,6 @@ export function ReviewSectionPage() {
       <ReviewQueue />
     </Guarded>
   );
-}
-
-export function ReviewJobRoute() {
-  const { jobId = '' } = useParams();
-  const { user } = useMe();
-  if (!user.role || !canOpen(SECTIONS.review, user.role)) return <ForbiddenPage what={SECTIONS.review.label} />;
-  return <ReviewJobPage jobId={jobId} />;
 }
 
 export function CertificatesSectionPage() {

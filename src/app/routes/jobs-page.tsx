@@ -1,15 +1,11 @@
-import { useParams } from 'react-router';
 import { JobList } from '../../features/jobs/components/job-list';
-import { JobPage } from '../../features/jobs/components/job-page';
 import { NewJobForm } from '../../features/jobs/components/new-job-form';
 import { useMe } from '../../features/session/api/get-me';
 import { canOpen, SECTIONS } from '../navigation';
 import { ForbiddenPage } from './forbidden';
 import { PageHeader } from './page-header';
 
-const READERS = ['analyst', 'quality_manager', 'signatory'];
-
-/** /app/jobs: the analyst's calibration jobs. */
+/** /app/jobs: the analyst's calibration jobs. The job page is ./job-detail-page, loaded on its own. */
 export function JobsPage() {
   const { user } = useMe();
   const section = SECTIONS.jobs;
@@ -34,13 +30,4 @@ export function NewJobPage() {
       <NewJobForm />
     </>
   );
-}
-
-/** /app/jobs/:jobId — analysts work on it; quality managers and signatories read it. */
-export function JobDetailPage() {
-  const { user } = useMe();
-  const { jobId = '' } = useParams();
-  if (!user.role || !READERS.includes(user.role)) return <ForbiddenPage what="Calibration job" />;
-  // Keyed by the job: a link from one job to another (an amendment's) starts the page afresh.
-  return <JobPage key={jobId} jobId={jobId} userId={user.id} today={new Date().toISOString().slice(0, 10)} />;
 }

@@ -21,3 +21,8 @@ export function SectionPage({ id }: { id: SectionId }) {
     </>
   );
 }
+
+/** /app/lab: the laboratory's details (a route component takes no props). */
+export function LabSectionPage() {
+  return <SectionPage id="lab" />;
+}
