@@ -407,9 +407,23 @@ function AnnexPoint({ point, index }: { point: CertificateResultPoint; index: nu
   );
 }
 
+/**
+ * The end of the certificate (7.8.2.1 d). Unbreakable: a one-line text split at the foot of a page
+ * leaves an empty remainder there, which react-pdf sets on a blank page of its own.
+ */
+function EndMark({ data }: { data: CertificateData }) {
+  return (
+    <Text style={s.end} wrap={false}>
+      End of certificate {data.certificateNumber}
+    </Text>
+  );
+}
+
+/** Annex A, closed by the end mark, which keeps to the last point's page; the end mark alone when no point has an annex. */
 function Annex({ data }: { data: CertificateData }) {
   const withAnnex = data.results.map((point, index) => ({ point, index })).filter(({ point }) => point.annex);
-  if (withAnnex.length === 0) return null;
+  if (withAnnex.length === 0) return <EndMark data={data} />;
+  const last = withAnnex.length - 1;
   return (
     // The annex starts on a page of its own: its heading was left alone at the foot of page 2.
     <View break>
@@ -417,9 +431,16 @@ function Annex({ data }: { data: CertificateData }) {
       <Text style={[s.small, { marginBottom: 4 }]}>
         Part of certificate {data.certificateNumber}. Sensitivity coefficients are partial derivatives of the model at the estimates; the share is the part of the combined variance.
       </Text>
-      {withAnnex.map(({ point, index }) => (
-        <AnnexPoint key={index} point={point} index={index} />
-      ))}
+      {withAnnex.map(({ point, index }, i) =>
+        i < last ? (
+          <AnnexPoint key={index} point={point} index={index} />
+        ) : (
+          <View key={index} wrap={false}>
+            <AnnexPoint point={point} index={index} />
+            <EndMark data={data} />
+          </View>
+        ),
+      )}
     </View>
   );
 }
@@ -438,7 +459,6 @@ export function CertificateDocument({ data }: { data: CertificateData }) {
         <Header data={data} />
         <FirstPart data={data} />
         <Annex data={data} />
-        <Text style={s.end}>End of certificate {data.certificateNumber}</Text>
         <Footer data={data} />
       </Page>
     </Document>

@@ -162,6 +162,22 @@ describe('certificate PDF content (ISO/IEC 17025:2017 7.8.2.1 and 7.8.4.1)', () 
     expect(annexText).not.toMatch(/T_bb|dT_|c_eps/);
   });
 
+  it('keeps the end mark on the page of the last annex point and leaves no page blank, however tall the annex (7.8.2.1 d)', async () => {
+    const extra = 'L_seen = eps_bb * planck(lambda_eff, T_bb) + (1 - eps_bb) * planck(lambda_eff, T_amb) + (1 - eps_bb) * (1 - eps_set) * planck(lambda_eff, T_amb) - dL_stray';
+    const header = [demoCertificate.lab.name, 'Calibration certificate · Accreditation', 'Reproduce only in full', /Page \d+ of \d+/, demoCertificate.certificateNumber];
+    for (let n = 1; n <= 4; n += 1) {
+      const results = demoCertificateInput.results.map((r) => ({ ...r, annex: r.annex && { ...r.annex, equations: [...(r.annex.equations ?? []), ...Array<string>(n).fill(extra)] } }));
+      const path = writeTemp(dir, `annex-${n}.pdf`, await renderCertificatePdf(certificateSchema.parse({ ...demoCertificateInput, results })));
+      const texts = pageTexts(path);
+      texts.forEach((text, i) => {
+        const body = text.split('\n').filter((line) => line.trim() && !header.some((h) => (typeof h === 'string' ? line.includes(h) : h.test(line))));
+        expect(body.length, `${n} extra equations, page ${i + 1} of ${texts.length}`).toBeGreaterThan(0);
+      });
+      expect(texts.at(-1)).toContain('Point 3 · nominal');
+      expect(texts.at(-1)).toContain('End of certificate');
+    }
+  }, 120_000);
+
   it('writes a quantity mu with the Greek letter and the prefix micro with the micro sign (SI Brochure §3)', async () => {
     const results = demoCertificateInput.results.map((r) => ({ ...r, measurand: { ...r.measurand, symbol: 'mu_a' } }));
     const path = writeTemp(dir, 'mu.pdf', await renderCertificatePdf(certificateSchema.parse({ ...demoCertificateInput, results })));
