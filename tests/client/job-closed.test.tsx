@@ -121,6 +121,8 @@ describe('an issued job', () => {
     expect(screen.getByRole('heading', { name: 'Budget (GUM)' })).toBeTruthy();
     const budget = await screen.findByRole('table', { name: 'Uncertainty budget' });
     expect(budget.querySelector('tr[data-symbol="eps_bb"]')).toBeTruthy();
+    // The budget names each distribution as the inputs above it do, not by the engine's keyword.
+    expect(budget.querySelector('tr[data-symbol="eps_set"]')!.textContent).toContain('exact (no uncertainty)');
     const stored = screen.getByRole('region', { name: 'Stored result' });
     expect(within(stored).getByText('Contributions, largest first')).toBeTruthy();
     expect(screen.getByRole('link', { name: 'Point budget as CSV' })).toBeTruthy();
