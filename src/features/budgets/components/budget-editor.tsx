@@ -16,7 +16,7 @@ import { ApiError } from '../../../lib/api-client';
 import { calculatePoint, fromStandard, savePoint, typedReadings, uploadReadings } from '../../jobs/api/points';
 import type { Point, Reason, Standard } from '../../jobs/api/types';
 import { BudgetTable } from './budget-table';
-import { InputRow } from './input-row';
+import { InputRow, InputsTableHead } from './input-row';
 import { MonteCarloPanel } from './monte-carlo-panel';
 import { StoredResultSection } from './stored-result';
 import { useDebounced } from '../../../lib/use-debounced';
@@ -128,14 +128,7 @@ export function BudgetEditor({ point, definition, standards, reasons, today, edi
         </div>
         <p className="mb-2 text-xs text-ink-muted">{closed ? '' : 'Tab moves along a row, Enter to the same field of the next row. '}Values are shown in the unit chosen at the left of each row and kept in SI.</p>
         <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
-              <th className="py-1.5 pr-2 font-semibold">Symbol and meaning</th>
-              <th className="py-1.5 pr-2 font-semibold">Unit</th>
-              <th className="py-1.5 pr-2 font-semibold">Distribution</th>
-              <th className="py-1.5 font-semibold">Value and parameters</th>
-            </tr>
-          </thead>
+          <InputsTableHead />
           <tbody>
             {inputs.map((input, row) => (
               <InputRow

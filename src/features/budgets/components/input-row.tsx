@@ -53,6 +53,20 @@ function NumberCell({ value, onChange, label, row, col, disabled }: { value: num
   );
 }
 
+/** Column headings of an input table: the budget editor's rows (InputRow) and a closed job's record. */
+export function InputsTableHead() {
+  return (
+    <thead>
+      <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
+        <th className="py-1.5 pr-2 font-semibold">Symbol and meaning</th>
+        <th className="py-1.5 pr-2 font-semibold">Unit</th>
+        <th className="py-1.5 pr-2 font-semibold">Distribution</th>
+        <th className="py-1.5 font-semibold">Value and parameters</th>
+      </tr>
+    </thead>
+  );
+}
+
 export function InputRow(props: {
   input: PointInput;
   row: number;

@@ -16,6 +16,7 @@ import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 import type { TemplateDefinition } from '../../../../shared/schemas/template.schema';
 import { INPUT_SOURCE_LABELS } from '../../../../shared/schemas/template.schema';
 import { BudgetTable } from '../../budgets/components/budget-table';
+import { InputsTableHead } from '../../budgets/components/input-row';
 import { StoredResultSection } from '../../budgets/components/stored-result';
 import { DISTRIBUTION_LABELS, parameterKeys, POSITION_KEYS, toDisplay, WIDTH_KEYS } from '../../budgets/components/units';
 import { Sym } from '../../templates/components/math-tex';
@@ -138,14 +139,7 @@ export function PointRecord({ point, definition, standards }: { point: Point; de
         <h3 id="inputs-heading" className="mb-2 text-base font-semibold">Input quantities</h3>
         <p className="mb-2 text-xs text-ink-muted">Each value in the unit given beside it; the calculation itself is in SI.</p>
         <table className="w-full border-collapse text-sm">
-          <thead>
-            <tr className="border-b border-line-strong text-left text-xs text-ink-muted">
-              <th className="py-1.5 pr-2 font-semibold">Symbol and meaning</th>
-              <th className="py-1.5 pr-2 font-semibold">Unit</th>
-              <th className="py-1.5 pr-2 font-semibold">Distribution</th>
-              <th className="py-1.5 font-semibold">Value and parameters</th>
-            </tr>
-          </thead>
+          <InputsTableHead />
           <tbody>
             {point.inputs.map((input) => (
               <InputRecordRow key={input.symbol} input={input} shown={units[input.symbol]} standards={standards} />
