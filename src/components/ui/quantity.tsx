@@ -16,11 +16,11 @@ export function ResultText({ value, U, unit, k, p, className }: { value: number;
  * with and without a unit end in one column of a budget table, decimal point under decimal point.
  *
  * The slot holds two glyphs ("°C", "µm"; wide: four) of the tables' monospaced font, Noto Sans
- * Mono, whose every glyph advances 0.6 em: 1.25 em (2.5 em) leaves room for rounding. Not 2ch:
- * the Greek face of Noto Sans Mono (src/styles/fonts.css) is declared after the Latin one and
- * without a unicode-range, so it is the first face for every character; it has no "0", and the
- * browser then takes 1ch as 0.5 em (CSS Values and Units Level 4, §6.1.1 `ch`). A 2ch slot was
- * narrower than "°C", which widened it and moved those rows' figures 2.6 px to the left.
+ * Mono, whose every glyph advances 0.6 em: 1.25 em (2.5 em) leaves room for rounding. In em, not
+ * ch: `ch` is measured on the "0" of whichever face comes first for that character (CSS Values and
+ * Units Level 4, §6.1.1), and when a face without a "0" came first (the Greek face before its
+ * unicode-range was declared, src/styles/fonts.css) 1ch was 0.5 em and a 2ch slot narrower than
+ * "°C", which moved those rows' figures 2.6 px to the left.
  */
 export function UnitSlot({ children, wide = false }: { children: string; wide?: boolean }) {
   return <span className={cn('inline-block text-left text-ink-muted', wide ? 'min-w-[2.5em]' : 'min-w-[1.25em]')}>{children}</span>;

@@ -17,17 +17,22 @@ export function JobLink({ id, number }: { id: string; number: string }) {
   return <Link className="font-mono font-semibold text-ember-strong underline" to={`/app/jobs/${id}`}>{number}</Link>;
 }
 
+/** Which certificate an amendment amends, the job it was issued from (a link) and why: the job page's and the review page's first sentences. */
+export function AmendmentOrigin({ amends }: { amends: Pick<JobAmends, 'certificateNumber' | 'reason' | 'jobId' | 'jobNumber'> }) {
+  return (
+    <>
+      Certificate <NoBreak>{amends.certificateNumber}</NoBreak> was issued from job <JobLink id={amends.jobId} number={amends.jobNumber} />. Reason: {withoutFinalStop(amends.reason)}.
+    </>
+  );
+}
+
 /**
  * At the top of the job page: which certificate the job amends and the job it was issued from (a
  * link), why, and what approval does to it.
  */
 export function AmendmentNotice({ amends }: { amends: JobAmends }) {
   const old = amends.certificateNumber;
-  const origin = (
-    <>
-      Certificate <NoBreak>{old}</NoBreak> was issued from job <JobLink id={amends.jobId} number={amends.jobNumber} />. Reason: {withoutFinalStop(amends.reason)}.
-    </>
-  );
+  const origin = <AmendmentOrigin amends={amends} />;
   if (amends.status === 'issued') {
     return (
       <Notice tone="info" label={`Amendment of certificate ${old}`}>

@@ -6,13 +6,12 @@ import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
 import { JOB_STATUS_LABELS, type JobStatus } from '../../../../shared/schemas/jobs.schema';
-import { JobLink } from '../../jobs/components/amendment';
+import { AmendmentOrigin } from '../../jobs/components/amendment';
 import { Sym } from '../../templates/components/math-tex';
 import { useReview } from '../api/review';
 import { ApproveForm, RejectForm } from './approve-dialog';
 import { CertificatePreview } from './certificate-preview';
 import { UnitSlot } from '../../../components/ui/quantity';
-import { withoutFinalStop } from '../../../lib/sentence';
 
 type Reported = { method: string; y: number; U: number; k: number | null; note: string | null } | null;
 type Result = {
@@ -70,8 +69,8 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
       )}
       {d.amends && (
         <Notice tone="warn" label={`Amendment of certificate ${d.amends.certificateNumber}`}>
-          {/* As the job's own page says it (src/features/jobs/components/amendment.tsx), with the same link back. */}
-          Certificate <NoBreak>{d.amends.certificateNumber}</NoBreak> was issued from job <JobLink id={d.amends.jobId} number={d.amends.jobNumber} />. Reason: {withoutFinalStop(d.amends.reason)}. When approved, the new certificate replaces <NoBreak>{d.amends.certificateNumber}</NoBreak>, which is then marked superseded.
+          {/* As the job's own page says it, with the same link back. */}
+          <AmendmentOrigin amends={d.amends} /> When approved, the new certificate replaces <NoBreak>{d.amends.certificateNumber}</NoBreak>, which is then marked superseded.
         </Notice>
       )}
       <Cautions />
