@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { evaluateGum } from '../../shared/engine';
 import { BudgetTable, formatShare } from '../../src/features/budgets/components/budget-table';
 import { inDisplayUnit } from '../../shared/format/units';
-import { fromDisplay, toDisplay, unitChoices } from '../../src/features/budgets/components/units';
+import { distributionLabel, fromDisplay, toDisplay, unitChoices } from '../../src/features/budgets/components/units';
 
 const doc = {
   measurand: { symbol: 'y', unit: 'K' },
@@ -35,6 +35,15 @@ describe('budget table', () => {
     expect(formatShare(8.8e-4)).toBe('0.088 %');
     expect(formatShare(8.0e-7)).toBe('< 0.01 %'); // was "0.000080 %", wider than its column
     expect(formatShare(0)).toBe('0.0 %');
+  });
+});
+
+describe('distribution names in budget tables (the budget editor, a closed job, the review)', () => {
+  it('names each engine keyword as the input editor does, and leaves an unknown one as it is', () => {
+    expect(distributionLabel('constant')).toBe('exact (no uncertainty)');
+    expect(distributionLabel('readings')).toBe('readings (Type A)');
+    expect(distributionLabel('normal')).toBe('normal');
+    expect(distributionLabel('toString')).toBe('toString');
   });
 });
 

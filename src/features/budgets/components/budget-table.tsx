@@ -4,7 +4,7 @@ import { formatUnit, inDisplayUnit, sensitivityUnit } from '../../../../shared/f
 import type { PointInput } from '../../../../shared/schemas/jobs.schema';
 import { Sym } from '../../templates/components/math-tex';
 import { UnitSlot } from '../../../components/ui/quantity';
-import { DISTRIBUTION_LABELS } from './units';
+import { distributionLabel } from './units';
 
 const num = (v: number, digits = 4) => formatNumber(v, { digits: digits });
 
@@ -49,7 +49,7 @@ export function BudgetTable({ result, inputs, shownUnits = {} }: { result: Evalu
             <td className="py-1 pr-2 font-sans"><Sym name={b.symbol} /></td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.estimate, 7)} <UnitSlot>{d.unit}</UnitSlot></td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.u, 3)} <UnitSlot>{d.unit}</UnitSlot></td>
-            <td className="py-1 pr-2 font-sans">{DISTRIBUTION_LABELS[b.distribution as keyof typeof DISTRIBUTION_LABELS] ?? b.distribution}</td>
+            <td className="py-1 pr-2 font-sans">{distributionLabel(b.distribution)}</td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{num(d.c, 4)} <UnitSlot wide>{sensitivityUnit(y, d.unit)}</UnitSlot></td>
             <td className="py-1 pr-2 text-right">{num(b.contribution, 3)}</td>
             <td className="py-1 pr-2 text-right">{b.dof === 'infinite' ? '∞' : formatNumber(b.dof, { digits: 3 })}</td>

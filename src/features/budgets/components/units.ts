@@ -76,6 +76,11 @@ export const DISTRIBUTION_LABELS: Record<Distribution['type'], string> = {
   constant: 'exact (no uncertainty)',
 };
 
+/** A budget row's distribution (the engine's type keyword) as the editor names it; an unknown keyword as it is. */
+export function distributionLabel(type: string): string {
+  return Object.prototype.hasOwnProperty.call(DISTRIBUTION_LABELS, type) ? DISTRIBUTION_LABELS[type as Distribution['type']] : type;
+}
+
 /** A new distribution of `type` around the same estimate and, roughly, the same width. */
 export function switchType(type: Distribution['type'], estimate: number, u: number): Distribution {
   const w = u > 0 ? u : Math.abs(estimate) * 1e-3 || 1e-3;

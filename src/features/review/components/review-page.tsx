@@ -6,6 +6,7 @@ import { Notice } from '../../../components/ui/notice';
 import { RefreshProblem } from '../../../components/ui/refresh-problem';
 import { formatCoverageProbability, formatNumber, formatResult, formatUnit, formatValueAndU, inDisplayUnit, sensitivityUnit } from '../../../../shared/format';
 import { JOB_STATUS_LABELS, type JobStatus } from '../../../../shared/schemas/jobs.schema';
+import { distributionLabel } from '../../budgets/components/units';
 import { AmendmentOrigin } from '../../jobs/components/amendment';
 import { Sym } from '../../templates/components/math-tex';
 import { useReview } from '../api/review';
@@ -147,7 +148,7 @@ export function ReviewJobPage({ jobId }: { jobId: string }) {
                           </td>
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.estimate)} <UnitSlot>{d.unit}</UnitSlot></td>
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.u)} <UnitSlot>{d.unit}</UnitSlot></td>
-                          <td className="py-1 pr-2">{b.distribution}</td>
+                          <td className="py-1 pr-2">{distributionLabel(b.distribution)}</td>
                           <td className="whitespace-nowrap py-1 pr-2 text-right font-mono tabular-nums">{sig(d.c)} <UnitSlot wide>{sensitivityUnit(r.unit, d.unit)}</UnitSlot></td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{sig(b.contribution)}</td>
                           <td className="py-1 pr-2 text-right font-mono tabular-nums">{formatNumber(b.share * 100, { decimals: 1, notation: 'fixed' })} %</td>
